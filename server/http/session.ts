@@ -1,0 +1,31 @@
+import session from "express-session";
+import connectPgSimple from "connect-pg-simple";
+import type { DataSource } from "typeorm";
+import type { Pool } from "pg";
+import type { Config } from "../config";
+
+declare module "express-session" {
+  interface SessionData {
+    userId?: string;
+    activeLabId?: string;
+  }
+}
+
+const SESSION_DAYS = 14;
+
+/** Sign-in sessions kept in PostgreSQL (table http_sessions, created by a migration). */
+export function sessionMiddleware(config: Config, dataSource: DataSource) {
+  const PgStore = connectPgSimple(session);
+  // Share TypeORM's pg pool rather than opening a second one.
+  const pool = (dataSource.driver as unknown as { master: Pool }).master;
+  const secure = config.COOKIE_SECURE === "auto" ? "auto" : config.COOKIE_SECURE === "true";
+  return session({
+    name: "rhomb.sid",
+    secret: config.sessionSecret,
+    store: new PgStore({ pool, tableName: "http_sessions", createTableIfMissing: false, pruneSessionInterval: 15 * 60 }),
+    resave: false,
+    saveUninitialized: false,
+    rolling: true,
+    cookie: { httpOnly: true, sameSite: "lax", secure, maxAge: SESSION_DAYS * 24 * 3600 * 1000 },
+  });
+}

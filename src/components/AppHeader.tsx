@@ -1,0 +1,41 @@
+import { Link, NavLink } from "react-router-dom";
+import { RhombMark } from "./RhombMark";
+
+export interface NavItem {
+  to: string;
+  label: string;
+  end?: boolean;
+}
+
+const NAV: NavItem[] = [
+  { to: "/", label: "Notebook", end: true },
+  { to: "/status", label: "Status" },
+];
+
+const linkClass = ({ isActive }: { isActive: boolean }) =>
+  [
+    "rounded-md px-3 py-1.5 text-sm font-bold transition-colors",
+    isActive ? "bg-petrol-700 text-paper-raised" : "text-ink-soft hover:bg-paper-sunk hover:text-ink",
+  ].join(" ");
+
+/** The top bar: mark, wordmark, primary navigation, and a slot for the account menu. */
+export function AppHeader({ nav = NAV, right }: { nav?: NavItem[]; right?: React.ReactNode }) {
+  return (
+    <header className="border-b-2 border-petrol-700 bg-paper-raised">
+      <div className="mx-auto flex max-w-7xl items-center gap-6 px-4 py-2.5">
+        <Link to="/" className="flex items-center gap-2 text-petrol-700" aria-label="Rhomb home">
+          <RhombMark />
+          <span className="text-xl font-bold tracking-tight text-ink">Rhomb</span>
+        </Link>
+        <nav aria-label="Main" className="flex items-center gap-1">
+          {nav.map((item) => (
+            <NavLink key={item.to} to={item.to} end={item.end} className={linkClass}>
+              {item.label}
+            </NavLink>
+          ))}
+        </nav>
+        <div className="ml-auto flex items-center gap-3">{right}</div>
+      </div>
+    </header>
+  );
+}

@@ -1,0 +1,20 @@
+import { Outlet } from "react-router-dom";
+import { AppHeader } from "./AppHeader";
+
+/** Page frame: skip link, header, main content, footer. */
+export function AppLayout() {
+  return (
+    <div className="flex min-h-screen flex-col">
+      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-paper-raised focus:px-3 focus:py-2">
+        Skip to content
+      </a>
+      <AppHeader />
+      <main id="main" className="mx-auto w-full max-w-7xl flex-1 px-4 py-6">
+        <Outlet />
+      </main>
+      <footer className="border-t border-paper-sunk py-3 text-center text-xs text-ink-faint">
+        Rhomb — a shared notebook for two-photon polarization tomography
+      </footer>
+    </div>
+  );
+}
