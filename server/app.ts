@@ -8,7 +8,9 @@ import type { Config } from "./config";
 import { logger } from "./logger";
 import { apiNotFound, errorMiddleware } from "./http/errorMiddleware";
 import { sessionMiddleware } from "./http/session";
+import { loadUser } from "./http/auth";
 import { healthRouter } from "./routes/health";
+import { apiRouters } from "./routes/index";
 
 export interface AppDeps {
   config: Config;
@@ -51,6 +53,8 @@ export function createApp({ config, dataSource }: AppDeps): Express {
   api.use(express.json({ limit: "2mb" }));
   api.use(healthRouter(dataSource));
   api.use(sessionMiddleware(config, dataSource));
+  api.use(loadUser);
+  for (const r of apiRouters) api.use(r.prefix, r.router);
   api.use(apiNotFound);
   app.use("/api", api);
 

@@ -36,3 +36,21 @@ describe("GET /api/health", () => {
     expect(res.headers["x-powered-by"]).toBeUndefined();
   });
 });
+
+describe("GET /api/openapi.json", () => {
+  let t: TestApp;
+  beforeAll(async () => {
+    t = await startTestApp();
+  });
+  afterAll(() => t.close());
+
+  it("describes the declared routes, with request schemas and whether sign-in is needed", async () => {
+    const res = await request(t.app).get("/api/openapi.json").expect(200);
+    expect(res.body.openapi).toBe("3.1.0");
+    const createLab = res.body.paths["/api/labs"].post;
+    expect(createLab["x-requires-sign-in"]).toBe(true);
+    expect(createLab.requestBody.content["application/json"].schema.required).toContain("name");
+    expect(res.body.paths["/api/labs/{labId}"].get.parameters[0]).toMatchObject({ name: "labId", in: "path", required: true });
+    expect(res.body.paths["/api/auth/sign-in"].post["x-requires-sign-in"]).toBe(false);
+  });
+});

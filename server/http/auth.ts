@@ -1,0 +1,36 @@
+import type { RequestHandler } from "express";
+import { db } from "../db/dataSource";
+import { User } from "../entities/User";
+
+/** Who is calling: set on req.user by loadUser for every API request. */
+export interface AuthUser {
+  id: string;
+  email: string;
+  displayName: string;
+  /** Set when the caller authenticated with a personal API token instead of a browser session. */
+  token?: { id: string; labId: string };
+}
+
+declare global {
+  // eslint-disable-next-line @typescript-eslint/no-namespace
+  namespace Express {
+    interface Request {
+      user?: AuthUser;
+    }
+  }
+}
+
+/** Loads the signed-in user from the sign-in session, if any. */
+export const loadUser: RequestHandler = async (req, _res, next) => {
+  try {
+    const userId = req.session?.userId;
+    if (userId) {
+      const user = await db().getRepository(User).findOneBy({ id: userId });
+      if (user) req.user = { id: user.id, email: user.email, displayName: user.displayName };
+      else delete req.session.userId;
+    }
+    next();
+  } catch (err) {
+    next(err);
+  }
+};
