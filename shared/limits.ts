@@ -4,4 +4,18 @@ export const LIMITS = {
   passwordLength: 200,
   nameLength: 120,
   notesLength: 20_000,
+  /** Notebook (sources, sessions, runs). */
+  shortTextLength: 500,
+  peoplePerSession: 30,
+  /** Rows of one run: 6⁴ = 1296 covers the largest standard set (four photons, six letters). */
+  runRows: 1296,
+  /** One uploaded counts file, bytes. */
+  uploadBytes: 1_000_000,
+  compareRuns: 6,
+  pageSizeDefault: 25,
+  pageSizeMax: 100,
+  searchLength: 200,
+  /** Monte Carlo samples per reconstruction (physics contract §5: default 200, up to 10,000). */
+  monteCarloDefault: 200,
+  monteCarloMax: 10_000,
 } as const;
