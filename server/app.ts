@@ -8,6 +8,7 @@ import type { Config } from "./config";
 import { logger } from "./logger";
 import { apiNotFound, errorMiddleware } from "./http/errorMiddleware";
 import { sessionMiddleware } from "./http/session";
+import { csrfProtection } from "./http/csrf";
 import { loadUser } from "./http/auth";
 import { healthRouter } from "./routes/health";
 import { apiRouters } from "./routes/index";
@@ -53,6 +54,7 @@ export function createApp({ config, dataSource }: AppDeps): Express {
   api.use(express.json({ limit: "2mb" }));
   api.use(healthRouter(dataSource));
   api.use(sessionMiddleware(config, dataSource));
+  api.use(csrfProtection);
   api.use(loadUser);
   for (const r of apiRouters) api.use(r.prefix, r.router);
   api.use(apiNotFound);

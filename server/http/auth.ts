@@ -1,6 +1,7 @@
 import type { RequestHandler } from "express";
 import { db } from "../db/dataSource";
 import { User } from "../entities/User";
+import { hasBearerToken } from "./csrf";
 
 /** Who is calling: set on req.user by loadUser for every API request. */
 export interface AuthUser {
@@ -20,10 +21,13 @@ declare global {
   }
 }
 
-/** Loads the signed-in user from the sign-in session, if any. */
+/**
+ * Loads the signed-in user from the sign-in session, if any. A request carrying a Bearer token
+ * is never authenticated by the cookie: it skipped the CSRF check, so the token alone must count.
+ */
 export const loadUser: RequestHandler = async (req, _res, next) => {
   try {
-    const userId = req.session?.userId;
+    const userId = hasBearerToken(req) ? undefined : req.session?.userId;
     if (userId) {
       const user = await db().getRepository(User).findOneBy({ id: userId });
       if (user) req.user = { id: user.id, email: user.email, displayName: user.displayName };

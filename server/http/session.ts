@@ -29,3 +29,14 @@ export function sessionMiddleware(config: Config, dataSource: DataSource) {
     cookie: { httpOnly: true, sameSite: "lax", secure, maxAge: SESSION_DAYS * 24 * 3600 * 1000 },
   });
 }
+
+type SessionReq = { session: session.Session & Partial<session.SessionData> };
+
+/** A fresh session id (at sign-in and sign-out), so a planted or stolen id is worth nothing. */
+export function regenerateSession(req: SessionReq): Promise<void> {
+  return new Promise((resolve, reject) => req.session.regenerate((err) => (err ? reject(err) : resolve())));
+}
+
+export function saveSession(req: SessionReq): Promise<void> {
+  return new Promise((resolve, reject) => req.session.save((err) => (err ? reject(err) : resolve())));
+}

@@ -16,3 +16,6 @@ export const MeSchema = z.object({
   emailVerified: z.boolean(),
 });
 export type Me = z.infer<typeof MeSchema>;
+
+/** GET /api/auth/csrf-token: the value to send back in the X-CSRF-Token header of every write. */
+export const CsrfTokenSchema = z.object({ token: z.string() });

@@ -32,11 +32,18 @@ export class ApiError extends Error {
 }
 
 type RequestHeaderHook = (method: string) => Promise<Record<string, string>> | Record<string, string>;
-const headerHooks: RequestHeaderHook[] = [];
 
-/** Lets a feature add headers to state-changing requests (e.g. the CSRF token). */
-export function addRequestHeaderHook(hook: RequestHeaderHook): void {
-  headerHooks.push(hook);
+export interface RequestHookOptions {
+  /** Sees every response, e.g. to pick up a fresh token from a response header. */
+  onResponse?: (res: Response) => void;
+  /** True to send the request once more after this error (the hook has refreshed its state). */
+  retryOn?: (err: ApiError) => boolean;
+}
+const headerHooks: Array<{ headers: RequestHeaderHook } & RequestHookOptions> = [];
+
+/** Lets a feature add headers to requests (e.g. the CSRF token) and react to their answers. */
+export function addRequestHeaderHook(hook: RequestHeaderHook, options: RequestHookOptions = {}): void {
+  headerHooks.push({ headers: hook, ...options });
 }
 
 export interface RequestOptions {
@@ -45,9 +52,18 @@ export interface RequestOptions {
   signal?: AbortSignal;
 }
 
-export async function apiFetch<T>(path: string, { method = "GET", body, signal }: RequestOptions = {}): Promise<T> {
+export async function apiFetch<T>(path: string, options: RequestOptions = {}): Promise<T> {
+  try {
+    return await send<T>(path, options);
+  } catch (err) {
+    if (err instanceof ApiError && headerHooks.some((h) => h.retryOn?.(err))) return send<T>(path, options);
+    throw err;
+  }
+}
+
+async function send<T>(path: string, { method = "GET", body, signal }: RequestOptions): Promise<T> {
   const headers: Record<string, string> = { Accept: "application/json" };
-  for (const hook of headerHooks) Object.assign(headers, await hook(method));
+  for (const hook of headerHooks) Object.assign(headers, await hook.headers(method));
   let payload: BodyInit | undefined;
   if (body instanceof FormData) payload = body;
   else if (body !== undefined) {
@@ -61,6 +77,7 @@ export async function apiFetch<T>(path: string, { method = "GET", body, signal }
     if ((err as Error).name === "AbortError") throw err;
     throw new ApiError(0, "network", "Rhomb's server cannot be reached. Check your connection; nothing was sent.");
   }
+  for (const hook of headerHooks) hook.onResponse?.(res);
   if (res.status === 204) return undefined as T;
   const text = await res.text();
   const data = text ? safeJson(text) : undefined;
