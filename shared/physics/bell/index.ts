@@ -1,0 +1,4 @@
+/** Bell tests: CHSH from counts, and what a density matrix predicts for the same test. */
+export * from "./angles";
+export * from "./chsh";
+export * from "./prediction";

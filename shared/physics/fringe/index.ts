@@ -1,0 +1,3 @@
+/** Fringe scans: the visibility fit, visibilities from raw extremes, and per-basis summaries. */
+export * from "./fit";
+export * from "./visibility";
