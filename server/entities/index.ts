@@ -1,8 +1,16 @@
+import { Attachment } from "./Attachment";
+import { AuditEntry } from "./AuditEntry";
 import { Lab } from "./Lab";
+import { LabSession } from "./LabSession";
 import { LabMembership } from "./LabMembership";
+import { Reconstruction } from "./Reconstruction";
+import { Run } from "./Run";
+import { RunRevision } from "./RunRevision";
+import { Source } from "./Source";
 import { User } from "./User";
 
 /** Every entity, listed explicitly (no globs: tsx and vitest load files differently). */
-export const entities = [User, Lab, LabMembership];
+export const entities = [User, Lab, LabMembership, Source, LabSession, Run, RunRevision, Reconstruction, Attachment, AuditEntry];
 
 export { Lab, LabMembership, User };
+export { Attachment, AuditEntry, LabSession, Reconstruction, Run, RunRevision, Source };

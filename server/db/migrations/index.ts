@@ -1,4 +1,5 @@
 import { Init1764633600000 } from "./1764633600000-Init";
+import { Notebook1764720000000 } from "./1764720000000-Notebook";
 
 /** Every migration in order, listed explicitly (no globs: tsx and vitest load files differently). */
-export const migrations = [Init1764633600000];
+export const migrations = [Init1764633600000, Notebook1764720000000];
