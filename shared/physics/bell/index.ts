@@ -2,3 +2,4 @@
 export * from "./angles";
 export * from "./chsh";
 export * from "./prediction";
+export * from "./settingAngles";
