@@ -169,7 +169,7 @@ export class Notebook1764720000000 implements MigrationInterface {
         id uuid PRIMARY KEY DEFAULT gen_random_uuid(),
         lab_id uuid NOT NULL REFERENCES labs(id) ON DELETE CASCADE,
         actor_id uuid REFERENCES users(id) ON DELETE SET NULL,
-        action text NOT NULL CHECK (action ~ '^[a-z]+(\\.[a-zA-Z]+)+$'),
+        action text NOT NULL CHECK (action ~ '^[a-z][a-zA-Z]*(\\.[a-z][a-zA-Z]*)+$'),
         entity_type text NOT NULL CHECK (length(entity_type) BETWEEN 1 AND 40),
         entity_id uuid NOT NULL,
         changes jsonb NOT NULL DEFAULT '{}' CHECK (jsonb_typeof(changes) = 'object'),
