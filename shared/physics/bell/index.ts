@@ -3,3 +3,4 @@ export * from "./angles";
 export * from "./chsh";
 export * from "./prediction";
 export * from "./settingAngles";
+export * from "./bellRun";
