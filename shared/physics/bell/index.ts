@@ -4,3 +4,4 @@ export * from "./chsh";
 export * from "./prediction";
 export * from "./settingAngles";
 export * from "./bellRun";
+export * from "./basisRates";
