@@ -8,4 +8,14 @@ export const queryKeys = {
   invitations: (labId: string) => ["labs", labId, "invitations"] as const,
   invitation: (token: string) => ["invitation", token] as const,
   devOutbox: ["dev-outbox"] as const,
+  /** Everything of the notebook (sources, sessions, runs, reconstructions); a write invalidates it all. */
+  labNotebook: (labId: string) => ["labs", labId, "notebook"] as const,
+  labHome: (labId: string) => ["labs", labId, "notebook", "home"] as const,
+  sources: (labId: string, query: object) => ["labs", labId, "notebook", "sources", query] as const,
+  source: (labId: string, sourceId: string) => ["labs", labId, "notebook", "source", sourceId] as const,
+  labSessions: (labId: string, query: object) => ["labs", labId, "notebook", "sessions", query] as const,
+  labSession: (labId: string, sessionId: string) => ["labs", labId, "notebook", "session", sessionId] as const,
+  runs: (labId: string, query: object) => ["labs", labId, "notebook", "runs", query] as const,
+  run: (labId: string, runId: string) => ["labs", labId, "notebook", "run", runId] as const,
+  compare: (labId: string, runIds: string[], method: string) => ["labs", labId, "notebook", "compare", runIds, method] as const,
 };
