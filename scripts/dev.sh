@@ -17,6 +17,8 @@ export PORT=${PORT:-$(free_port 5180)}
 export VITE_PORT=${VITE_PORT:-$(free_port 5173)}
 export PUBLIC_URL=${PUBLIC_URL:-http://127.0.0.1:$VITE_PORT}
 export RHOMB_STATIC_DIR=.rhomb/no-static
+# Without SMTP_URL, mail is caught by a fake SMTP server inside the web process: see /dev/outbox.
+export RHOMB_FAKE_SMTP=${RHOMB_FAKE_SMTP:-1}
 
 node_modules/.bin/tsx watch --clear-screen=false server/index.ts &
 api_pid=$!

@@ -24,6 +24,9 @@ export HOST=${HOST:-127.0.0.1}
 export PORT=${PORT:-$(free_port 5180)}
 export COOKIE_SECURE=${COOKIE_SECURE:-auto}
 export PUBLIC_URL=${PUBLIC_URL:-http://$HOST:$PORT}
+# Without SMTP_URL, mail is caught by a fake SMTP server inside the web process: see /dev/outbox.
+export RHOMB_FAKE_SMTP=${RHOMB_FAKE_SMTP:-1}
+if [ -n "${SMTP_URL:-}" ]; then mail_line="E-mail goes out through SMTP_URL."; else mail_line="E-mail is not sent out: read it in the development outbox, $PUBLIC_URL/dev/outbox"; fi
 
 stop_all() {
   trap - INT TERM
@@ -53,6 +56,8 @@ cat <<MSG
     member@larkspur.example    member (batch uploads)
     student@larkspur.example   member (enters counts by hand)
     guest@partner.example      collaborator (sees only what is shared)
+
+  $mail_line
 
   Press Ctrl-C to stop the server and the database.
 

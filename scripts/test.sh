@@ -25,4 +25,6 @@ if [ -z "${RHOMB_TEST_ADMIN_URL:-}" ]; then
 fi
 
 export NODE_ENV=test
+# Without SMTP_URL, mail is caught by a fake SMTP server inside the process (see README).
+export RHOMB_FAKE_SMTP=${RHOMB_FAKE_SMTP:-1}
 node_modules/.bin/vitest run "$@"

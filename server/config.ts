@@ -12,6 +12,9 @@ const EnvSchema = z.object({
   TRUST_PROXY: z.string().optional(),
   SMTP_URL: z.string().optional(),
   MAIL_FROM: z.string().default("Rhomb <no-reply@rhomb.localhost>"),
+  /** "1": without SMTP_URL, catch mail in a fake SMTP server inside this process (start, dev, test set it). */
+  RHOMB_FAKE_SMTP: z.enum(["0", "1"]).default("0"),
+  RHOMB_FAKE_SMTP_PORT: z.coerce.number().int().min(0).max(65535).default(0),
   LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).default("info"),
   RHOMB_STATIC_DIR: z.string().default("dist/client"),
   RHOMB_IN_PROCESS_WORKERS: z.coerce.number().int().min(0).max(16).default(1),

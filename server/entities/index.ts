@@ -1,5 +1,7 @@
 import { Attachment } from "./Attachment";
 import { AuditEntry } from "./AuditEntry";
+import { EmailToken } from "./EmailToken";
+import { Invitation } from "./Invitation";
 import { Lab } from "./Lab";
 import { LabSession } from "./LabSession";
 import { LabMembership } from "./LabMembership";
@@ -10,7 +12,7 @@ import { Source } from "./Source";
 import { User } from "./User";
 
 /** Every entity, listed explicitly (no globs: tsx and vitest load files differently). */
-export const entities = [User, Lab, LabMembership, Source, LabSession, Run, RunRevision, Reconstruction, Attachment, AuditEntry];
+export const entities = [User, Lab, LabMembership, Source, LabSession, Run, RunRevision, Reconstruction, Attachment, AuditEntry, EmailToken, Invitation];
 
-export { Lab, LabMembership, User };
+export { EmailToken, Invitation, Lab, LabMembership, User };
 export { Attachment, AuditEntry, LabSession, Reconstruction, Run, RunRevision, Source };

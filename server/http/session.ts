@@ -2,7 +2,9 @@ import session from "express-session";
 import connectPgSimple from "connect-pg-simple";
 import type { DataSource } from "typeorm";
 import type { Pool } from "pg";
+import type { Request, Response } from "express";
 import type { Config } from "../config";
+import { issueCsrfToken } from "./csrf";
 
 declare module "express-session" {
   interface SessionData {
@@ -39,4 +41,12 @@ export function regenerateSession(req: SessionReq): Promise<void> {
 
 export function saveSession(req: SessionReq): Promise<void> {
   return new Promise((resolve, reject) => req.session.save((err) => (err ? reject(err) : resolve())));
+}
+
+/** Signs `userId` in on a fresh session id, with a fresh CSRF token in the response header. */
+export async function startSignedInSession(req: Request, res: Response, userId: string): Promise<void> {
+  await regenerateSession(req);
+  req.session.userId = userId;
+  issueCsrfToken(req, res);
+  await saveSession(req);
 }

@@ -47,3 +47,8 @@ export async function authorizeLab(user: AuthUser, labId: string, action: LabAct
   }
   return role;
 }
+
+/** Removing someone from a lab: owners may remove anyone; everyone may leave by themselves. */
+export function authorizeMemberRemoval(user: AuthUser, labId: string, targetUserId: string): Promise<LabRole> {
+  return authorizeLab(user, labId, user.id === targetUserId ? "read" : "manage");
+}

@@ -1,4 +1,4 @@
-import type { CreateLab } from "@shared/schemas/labs";
+import type { CreateLab, UpdateLab } from "@shared/schemas/labs";
 import type { LabRole } from "@shared/schemas/roles";
 import { db } from "../db/dataSource";
 import { Lab } from "../entities/Lab";
@@ -19,5 +19,21 @@ export async function createLab(user: AuthUser, input: CreateLab): Promise<Lab> 
     const lab = await em.save(em.create(Lab, { name: input.name, institution: input.institution, createdById: user.id }));
     await em.save(em.create(LabMembership, { labId: lab.id, userId: user.id, role: "owner" }));
     return lab;
+  });
+}
+
+export async function updateLab(labId: string, input: UpdateLab): Promise<Lab> {
+  return db().transaction(async (em) => {
+    const lab = await em.findOneByOrFail(Lab, { id: labId });
+    if (input.name !== undefined) lab.name = input.name;
+    if (input.institution !== undefined) lab.institution = input.institution;
+    return em.save(lab);
+  });
+}
+
+/** Deletes the lab and, through ON DELETE CASCADE, everything in it. */
+export async function deleteLab(labId: string): Promise<void> {
+  await db().transaction(async (em) => {
+    await em.delete(Lab, { id: labId });
   });
 }

@@ -23,3 +23,9 @@ export const LabSchema = z.object({
 export type LabDto = z.infer<typeof LabSchema>;
 
 export const LabListSchema = z.object({ data: z.array(LabSchema) });
+
+export const UpdateLabSchema = z.object({
+  name: CreateLabSchema.shape.name.optional(),
+  institution: z.string().trim().max(LIMITS.nameLength, `At most ${LIMITS.nameLength} characters.`).optional(),
+});
+export type UpdateLab = z.infer<typeof UpdateLabSchema>;
