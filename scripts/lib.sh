@@ -4,13 +4,26 @@ cd "$repo"
 say() { echo "[rhomb] $*" >&2; }
 
 # Install npm dependencies when node_modules is missing or older than package-lock.json.
+# A fresh clone gets `npm ci`; an existing tree gets `npm install`, which never deletes
+# node_modules under a process that is using it. A lock keeps concurrent runs from installing
+# at the same time.
 ensure_node_modules() {
   local stamp=node_modules/.rhomb-lock-hash want
-  want=$(sha1sum package-lock.json package.json | sha1sum | cut -c1-40)
+  want=$(cat package-lock.json package.json | sha1sum | cut -c1-40)
   if [ -f "$stamp" ] && [ "$(cat "$stamp")" = "$want" ]; then return; fi
-  say "installing npm dependencies (first run takes about a minute)…"
-  npm ci --no-audit --no-fund --loglevel=error >&2
-  echo "$want" >"$stamp"
+  mkdir -p .rhomb
+  (
+    flock -w 600 9 || { say "another install is still running"; exit 1; }
+    if [ -f "$stamp" ] && [ "$(cat "$stamp")" = "$want" ]; then exit 0; fi
+    if [ -d node_modules/.bin ]; then
+      say "updating npm dependencies…"
+      npm install --no-audit --no-fund --loglevel=error >&2
+    else
+      say "installing npm dependencies (first run takes about a minute)…"
+      npm ci --no-audit --no-fund --loglevel=error >&2
+    fi
+    echo "$want" >"$stamp"
+  ) 9>.rhomb/npm-install.lock
 }
 
 # A per-checkout session secret, so sign-ins survive restarts without one in the repo.
