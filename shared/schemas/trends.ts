@@ -32,8 +32,8 @@ export type TrendQuery = z.infer<typeof TrendQuerySchema>;
 export const TREND_X_KEYS = ["pumpPowerMw", "crystalTemperatureC", "compensatorTiltDeg", "exposureSeconds", "recordedAt", "order"] as const;
 export type TrendXKey = (typeof TREND_X_KEYS)[number];
 
-/** The figures a trend can plot: reconstruction metrics, fidelity to the source's target, Bell S, visibilities. */
-export const TREND_FIGURE_KEYS = [...METRIC_KEYS, "fidelityTarget", "chshS", "visibilityHV", "visibilityDA"] as const;
+/** The figures a trend can plot: reconstruction metrics, fidelity to the source's target, |S| of Bell runs (default angles), fitted visibilities of fringe runs (no background). */
+export const TREND_FIGURE_KEYS = [...METRIC_KEYS, "fidelityTarget", "chshAbsS", "visibilityHV", "visibilityDA"] as const;
 export type TrendFigureKey = (typeof TREND_FIGURE_KEYS)[number];
 
 export const ValueWithSigmaSchema = z.object({ value: z.number(), sigma: z.number().nullable() });

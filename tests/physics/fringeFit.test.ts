@@ -1,4 +1,5 @@
 import { describe, expect, it } from "vitest";
+import { poisson, randomStream } from "@shared/physics/random";
 import { type FringePoint, fitFringe, fringeBasis, visibilitiesByBasis, visibilityFromExtremes } from "@shared/physics/fringe";
 
 const DEG = Math.PI / 180;
@@ -12,29 +13,10 @@ function scan(rate: (t: number) => number, angles: number[], seconds = 1): Fring
 
 const ANGLES = Array.from({ length: 12 }, (_, i) => i * 15);
 
-/** Seeded uniform generator (mulberry32, public-domain algorithm) and Poisson sampler. */
+/** Poisson draws from the engine's seeded generator. */
 function poissonSampler(seed: number): (mean: number) => number {
-  let s = seed >>> 0;
-  const uniform = () => {
-    s = (s + 0x6d2b79f5) >>> 0;
-    let t = s;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-  // Knuth's multiplication method (Knuth, TAOCP vol. 2, §3.4.1), split into chunks of mean ≤ 500.
-  return (mean) => {
-    let n = 0;
-    for (let left = mean; left > 0; left -= 500) {
-      const limit = Math.exp(-Math.min(left, 500));
-      let p = uniform();
-      while (p > limit) {
-        n++;
-        p *= uniform();
-      }
-    }
-    return n;
-  };
+  const rng = randomStream(seed);
+  return (mean) => poisson(mean, rng);
 }
 
 describe("fringe fit", () => {
