@@ -133,6 +133,8 @@ export async function signedInClient(t: TestApp, user: User): Promise<TestClient
 
 export interface LabFixture {
   lab: Lab;
+  /** The outsider's own lab, where they are owner. */
+  otherLab: Lab;
   users: Record<LabRole | "outsider", User>;
   clients: Record<LabRole | "outsider" | "anonymous", TestClient>;
 }
@@ -149,5 +151,5 @@ export async function labWithRoles(t: TestApp): Promise<LabFixture> {
     { labId: otherLab.id, userId: outsider.id, role: "owner" },
   ]);
   const [co, cm, cv, cx] = await Promise.all([owner, member, viewer, outsider].map((u) => signedInClient(t, u)));
-  return { lab, users: { owner, member, viewer, outsider }, clients: { owner: co, member: cm, viewer: cv, outsider: cx, anonymous: new TestClient(t) } };
+  return { lab, otherLab, users: { owner, member, viewer, outsider }, clients: { owner: co, member: cm, viewer: cv, outsider: cx, anonymous: new TestClient(t) } };
 }
