@@ -14,7 +14,7 @@ export function buildOpenApiDocument(version: string): Record<string, unknown> {
   }
   return {
     openapi: "3.1.0",
-    info: { title: "Rhomb API", version, description: "Two-photon polarization tomography notebook. Errors: { error: { code, message, details? } }." },
+    info: { title: "Rhomb API", version, description: "Two-photon polarization tomography notebook. Errors: { error: { code, message, details? } }. Browser sessions send the token from GET /api/auth/csrf-token in an X-CSRF-Token header with every POST, PUT, PATCH and DELETE; requests with a Bearer API token do not." },
     servers: [{ url: "/" }],
     components: {
       securitySchemes: {
