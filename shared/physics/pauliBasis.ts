@@ -1,0 +1,95 @@
+/**
+ * The Pauli-product basis of Hermitian d×d matrices, d = 2ⁿ: Γ_j = σ_{j1} ⊗ … ⊗ σ_{jn} with
+ * σ_0 = I, σ_1 = X, σ_2 = Y, σ_3 = Z, Tr(Γ_i Γ_j) = d δ_ij, so σ = (1/d) Σ_j Tr(σ Γ_j) Γ_j
+ * (e.g. James et al., Phys. Rev. A 64, 052312 (2001), Eq. (3.9) for two qubits).
+ * Index j has base-4 digits j1 … jn, photon A most significant.
+ */
+import { type CMatrix, zeros } from "./linalg/complexMatrix";
+
+export const PAULI_LETTERS = ["I", "X", "Y", "Z"] as const;
+
+export function pauliName(j: number, photons: number): string {
+  let s = "";
+  for (let i = photons - 1; i >= 0; i--) s += PAULI_LETTERS[(j >> (2 * i)) & 3];
+  return s;
+}
+
+/**
+ * Visits the non-zero entries of Γ_j: one per row r, at column r XOR mask, value i^power.
+ */
+function forEachEntry(j: number, photons: number, visit: (r: number, c: number, re: number, im: number) => void): void {
+  const d = 1 << photons;
+  let mask = 0;
+  for (let q = 0; q < photons; q++) {
+    const p = (j >> (2 * (photons - 1 - q))) & 3;
+    if (p === 1 || p === 2) mask |= 1 << (photons - 1 - q);
+  }
+  for (let r = 0; r < d; r++) {
+    let power = 0;
+    for (let q = 0; q < photons; q++) {
+      const p = (j >> (2 * (photons - 1 - q))) & 3;
+      const bit = (r >> (photons - 1 - q)) & 1;
+      if (p === 2) power += bit ? 1 : 3;
+      else if (p === 3 && bit) power += 2;
+    }
+    power &= 3;
+    visit(r, r ^ mask, power === 0 ? 1 : power === 2 ? -1 : 0, power === 1 ? 1 : power === 3 ? -1 : 0);
+  }
+}
+
+/** σ = (1/d) Σ_j x_j Γ_j */
+export function fromPauliCoefficients(x: ArrayLike<number>, photons: number): CMatrix {
+  const d = 1 << photons;
+  const out = zeros(d);
+  for (let j = 0; j < d * d; j++) {
+    const xj = x[j] / d;
+    if (xj === 0) continue;
+    forEachEntry(j, photons, (r, c, re, im) => {
+      out.re[r * d + c] += xj * re;
+      out.im[r * d + c] += xj * im;
+    });
+  }
+  return out;
+}
+
+/** x_j = Tr(ρ Γ_j) (real for Hermitian ρ). */
+export function pauliCoefficients(rho: CMatrix, photons: number): Float64Array {
+  const d = 1 << photons;
+  const x = new Float64Array(d * d);
+  for (let j = 0; j < d * d; j++) {
+    let s = 0;
+    // Tr(ρΓ) = Σ_{r} Σ_c ρ_{c r} Γ_{r c}
+    forEachEntry(j, photons, (r, c, re, im) => {
+      s += rho.re[c * d + r] * re - rho.im[c * d + r] * im;
+    });
+    x[j] = s;
+  }
+  return x;
+}
+
+/**
+ * Row of the design matrix for a product projector: a_j = (1/d) Π_i b_i(j_i), where
+ * b_i = (1, ⟨X⟩, ⟨Y⟩, ⟨Z⟩) of photon i's analysed state, so that Tr(σ P) = Σ_j a_j Tr(σ Γ_j).
+ */
+export function designRow(
+  singleRe: Float64Array,
+  singleIm: Float64Array,
+  offset: number,
+  photons: number,
+  out: Float64Array,
+  outOffset: number,
+): void {
+  const d = 1 << photons;
+  let row = Float64Array.of(1 / d);
+  for (let q = 0; q < photons; q++) {
+    const o = offset + q * 2;
+    const ar = singleRe[o], ai = singleIm[o], br = singleRe[o + 1], bi = singleIm[o + 1];
+    const n2 = ar * ar + ai * ai + br * br + bi * bi;
+    // Bloch components of (a, b): X = 2 Re(a* b), Y = 2 Im(a* b), Z = |a|² − |b|²
+    const bloch = [n2, 2 * (ar * br + ai * bi), 2 * (ar * bi - ai * br), ar * ar + ai * ai - br * br - bi * bi];
+    const next = new Float64Array(row.length * 4);
+    for (let i = 0; i < row.length; i++) for (let p = 0; p < 4; p++) next[i * 4 + p] = row[i] * bloch[p];
+    row = next;
+  }
+  out.set(row, outOffset);
+}

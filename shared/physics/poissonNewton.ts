@@ -1,0 +1,233 @@
+/**
+ * NLL(θ) = Σ_k [μ_k − n_k ln μ_k] in the Cholesky parameters θ of σ = T T† (see
+ * choleskyParametrisation.ts), with its gradient, exact Hessian and exact step changes, for
+ * the damped Newton iteration in maximumLikelihood.ts. All buffers are allocated once.
+ *
+ * With v_k = T†ψ_k and μ_k = w_k ‖v_k‖²:
+ *   ∂μ_k/∂Re T_ij = 2 w_k Re(ψ_k,i conj v_k,j),  ∂μ_k/∂Im T_ij = 2 w_k Im(ψ_k,i conj v_k,j),
+ *   ∇NLL = Σ_k c_k ∇μ_k,  c_k = 1 − n_k/μ_k (1 for rows without counts),
+ *   ∇²NLL = Σ_k (n_k/μ_k²) ∇μ_k ∇μ_kᵀ + ∇²_θ Tr(T† G T),  G = Σ_k c_k w_k |ψ_k⟩⟨ψ_k|,
+ * where the last Hessian is block diagonal over the columns j of T: 2·[[Re G, −Im G], [Im G, Re G]]
+ * on the entries i, l ≥ j.
+ */
+import type { MeasurementModel } from "./measurementModel";
+import type { PreparedCounts } from "./corrections";
+import type { NewtonProblem } from "./linalg/dampedNewton";
+import { type CMatrix, zeros } from "./linalg/complexMatrix";
+import { unpackParameters } from "./choleskyParametrisation";
+import { gapBound } from "./likelihood";
+
+export class PoissonNewton implements NewtonProblem {
+  readonly size: number;
+  readonly gradient: Float64Array;
+  readonly hessian: Float64Array;
+  private readonly d: number;
+  private readonly mu: Float64Array;
+  private readonly coef: Float64Array;
+  private readonly vRe: Float64Array;
+  private readonly vIm: Float64Array;
+  /** ∇μ_k per row, rows × size */
+  private readonly dmu: Float64Array;
+  private readonly t: CMatrix;
+  private readonly step: CMatrix;
+  private readonly g: CMatrix;
+  private readonly coupling: Couplings;
+  private totalExpected = 0;
+
+  constructor(private readonly model: MeasurementModel, private readonly data: PreparedCounts) {
+    const d = model.dimension;
+    this.d = d;
+    this.size = d * d;
+    this.gradient = new Float64Array(this.size);
+    this.hessian = new Float64Array(this.size * this.size);
+    this.mu = new Float64Array(model.rows);
+    this.coef = new Float64Array(model.rows);
+    this.vRe = new Float64Array(model.rows * d);
+    this.vIm = new Float64Array(model.rows * d);
+    this.dmu = new Float64Array(model.rows * this.size);
+    this.t = zeros(d);
+    this.step = zeros(d);
+    this.g = zeros(d);
+    this.coupling = couplings(d);
+  }
+
+  /** μ_k, v_k, ∇μ_k, c_k, G and the gradient at θ. */
+  evaluate(theta: Float64Array): void {
+    const { d, model, data, mu, coef, vRe, vIm, dmu, size, gradient } = this;
+    const { psiRe, psiIm } = model;
+    const tRe = this.t.re as Float64Array, tIm = this.t.im as Float64Array;
+    unpackParameters(theta, d, tRe, tIm);
+    gradient.fill(0);
+    let total = 0;
+    for (let k = 0; k < model.rows; k++) {
+      const o = k * d;
+      let norm2 = 0;
+      for (let j = 0; j < d; j++) {
+        let ar = 0;
+        let ai = 0;
+        for (let i = j; i < d; i++) {
+          const tr = tRe[i * d + j], ti = tIm[i * d + j];
+          const pr = psiRe[o + i], pi = psiIm[o + i];
+          ar += tr * pr + ti * pi;
+          ai += tr * pi - ti * pr;
+        }
+        vRe[o + j] = ar;
+        vIm[o + j] = ai;
+        norm2 += ar * ar + ai * ai;
+      }
+      const w = data.weights[k];
+      const m = w * norm2;
+      mu[k] = m;
+      total += m;
+      const nk = data.counts[k];
+      const c = nk > 0 ? 1 - nk / m : 1;
+      coef[k] = c;
+      const row = k * size;
+      for (let i = 0; i < d; i++) {
+        const pr = 2 * w * psiRe[o + i], pi = 2 * w * psiIm[o + i];
+        const base = i * i;
+        for (let j = 0; j < i; j++) {
+          const re = pr * vRe[o + j] + pi * vIm[o + j];
+          const im = pi * vRe[o + j] - pr * vIm[o + j];
+          const p = base + 2 * j;
+          dmu[row + p] = re;
+          dmu[row + p + 1] = im;
+          gradient[p] += c * re;
+          gradient[p + 1] += c * im;
+        }
+        const re = pr * vRe[o + i] + pi * vIm[o + i];
+        const p = base + 2 * i;
+        dmu[row + p] = re;
+        gradient[p] += c * re;
+      }
+    }
+    this.totalExpected = total;
+    this.projectorSum();
+  }
+
+  buildHessian(): void {
+    const { model, data, mu, dmu, size, hessian: h, g, coupling } = this;
+    h.fill(0);
+    for (let k = 0; k < model.rows; k++) {
+      const nk = data.counts[k];
+      if (nk === 0) continue;
+      const s = nk / (mu[k] * mu[k]);
+      const row = k * size;
+      for (let a = 0; a < size; a++) {
+        const ga = s * dmu[row + a];
+        if (ga === 0) continue;
+        const ha = a * size;
+        for (let b = 0; b <= a; b++) h[ha + b] += ga * dmu[row + b];
+      }
+    }
+    const { target, source, sign } = coupling;
+    for (let e = 0; e < target.length; e++) {
+      const sg = sign[e];
+      h[target[e]] += sg === 0 ? 2 * g.re[source[e]] : 2 * sg * g.im[source[e]];
+    }
+    for (let a = 0; a < size; a++) for (let b = 0; b < a; b++) h[b * size + a] = h[a * size + b];
+  }
+
+  change(delta: Float64Array): number {
+    const { d, model, data, mu, vRe, vIm } = this;
+    const { psiRe, psiIm } = model;
+    const sRe = this.step.re as Float64Array, sIm = this.step.im as Float64Array;
+    unpackParameters(delta, d, sRe, sIm);
+    let total = 0;
+    for (let k = 0; k < model.rows; k++) {
+      const o = k * d;
+      let cross = 0;
+      let norm2 = 0;
+      for (let j = 0; j < d; j++) {
+        let ar = 0;
+        let ai = 0;
+        for (let i = j; i < d; i++) {
+          const tr = sRe[i * d + j], ti = sIm[i * d + j];
+          const pr = psiRe[o + i], pi = psiIm[o + i];
+          ar += tr * pr + ti * pi;
+          ai += tr * pi - ti * pr;
+        }
+        cross += vRe[o + j] * ar + vIm[o + j] * ai;
+        norm2 += ar * ar + ai * ai;
+      }
+      const dm = data.weights[k] * (2 * cross + norm2);
+      const nk = data.counts[k];
+      if (nk > 0) {
+        const rel = dm / mu[k];
+        if (!(rel > -1)) return Infinity;
+        total += dm - nk * Math.log1p(rel);
+      } else {
+        total += dm;
+      }
+    }
+    return total;
+  }
+
+  /** Optimality gap at the last evaluated point (see maximumLikelihood.ts). */
+  gap(mInvSqrt: CMatrix): number {
+    return gapBound(this.g, mInvSqrt, this.totalExpected, this.data.totalCounts);
+  }
+
+  /** G = Σ_k c_k w_k |ψ_k⟩⟨ψ_k| into this.g. */
+  private projectorSum(): void {
+    const { d, model, data, coef, g } = this;
+    const { psiRe, psiIm } = model;
+    const gr = g.re as Float64Array, gi = g.im as Float64Array;
+    gr.fill(0);
+    gi.fill(0);
+    for (let k = 0; k < model.rows; k++) {
+      const c = coef[k] * data.weights[k];
+      const o = k * d;
+      for (let i = 0; i < d; i++) {
+        const xr = c * psiRe[o + i], xi = c * psiIm[o + i];
+        for (let j = 0; j <= i; j++) {
+          gr[i * d + j] += xr * psiRe[o + j] + xi * psiIm[o + j];
+          gi[i * d + j] += xi * psiRe[o + j] - xr * psiIm[o + j];
+        }
+      }
+    }
+    for (let i = 0; i < d; i++) {
+      for (let j = 0; j < i; j++) {
+        gr[j * d + i] = gr[i * d + j];
+        gi[j * d + i] = -gi[i * d + j];
+      }
+    }
+  }
+}
+
+/** Lower-triangle Hessian entries fed by G: value 2·Re G (sign 0) or 2·sign·Im G (sign ±1). */
+interface Couplings {
+  target: Int32Array;
+  source: Int32Array;
+  sign: Int8Array;
+}
+
+function couplings(d: number): Couplings {
+  const size = d * d;
+  let count = 0;
+  for (let j = 0; j < d; j++) for (let i = j; i < d; i++) count += 4 * (i - j + 1);
+  const target = new Int32Array(count);
+  const source = new Int32Array(count);
+  const sign = new Int8Array(count);
+  let e = 0;
+  for (let j = 0; j < d; j++) {
+    for (let i = j; i < d; i++) {
+      for (let l = j; l <= i; l++) {
+        const src = i * d + l;
+        const ar = i * i + 2 * j; // Re T_ij; Im T_ij follows when j < i
+        const br = l * l + 2 * j;
+        const entries: [number, number, number][] = [[ar, br, 0]];
+        if (j < i && j < l) entries.push([ar + 1, br + 1, 0]);
+        if (j < i) entries.push([ar + 1, br, 1]);
+        if (j < l) entries.push([ar, br + 1, -1]);
+        for (const [a, b, sg] of entries) {
+          target[e] = a >= b ? a * size + b : b * size + a;
+          source[e] = src;
+          sign[e] = sg;
+          e++;
+        }
+      }
+    }
+  }
+  return { target: target.subarray(0, e), source: source.subarray(0, e), sign: sign.subarray(0, e) };
+}
