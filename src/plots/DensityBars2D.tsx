@@ -10,9 +10,9 @@ const HEAD = 34;
  * positive values and falling for negative ones, coloured by sign; on the shared scale.
  * Also the fallback when the browser has no WebGL.
  */
-export function DensityBars2D({ rho, sigma, scale }: { rho: ComplexMatrix; sigma?: ComplexMatrix | null; scale: number }) {
+export function DensityBars2D({ rho, sigma, scale, stacked = false }: { rho: ComplexMatrix; sigma?: ComplexMatrix | null; scale: number; stacked?: boolean }) {
   return (
-    <div className="grid gap-4 md:grid-cols-2">
+    <div className={`grid gap-4 ${stacked ? "" : "md:grid-cols-2"}`}>
       {(["re", "im"] as const).map((part) => (
         <PartGrid key={part} part={part} rho={rho} sigma={sigma} scale={scale} />
       ))}

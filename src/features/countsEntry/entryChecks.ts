@@ -1,0 +1,86 @@
+/**
+ * Feedback while counts are typed (before anything is saved): which rows are still empty or
+ * unreadable, zeros, counts far from what the other rows imply, low statistics, and the live
+ * linear estimate with its eigenvalues.
+ *
+ * "Far from what the rest imply" (our rule; common practice has no single one): fit the
+ * physical least-squares estimate of Smolin, Gambetta, Smith (PRL 108, 070502, 2012) to all
+ * rows, predict every row's counts μ̂ from it, and flag rows whose count misses μ̂ by more than
+ * OUTLIER_SIGMA Poisson standard deviations and by more than OUTLIER_SHARE of the largest
+ * count. A linear estimate alone cannot do this for the 16-setting set: it fits 16 rows with
+ * 16 parameters exactly.
+ */
+import { reconstruct, type Reconstruction } from "@shared/physics/reconstruct";
+import type { CountsRow, SetupConventions } from "@shared/physics/types";
+
+export const OUTLIER_SIGMA = 6;
+export const OUTLIER_SHARE = 0.05;
+/** Below this mean count per row, Poisson noise alone is over 30 % (1/√10). */
+export const LOW_MEAN_COUNT = 10;
+
+export interface EntryRow {
+  label: string;
+  counts: unknown;
+  seconds?: unknown;
+  singlesA?: unknown;
+  singlesB?: unknown;
+}
+
+export interface Outlier {
+  row: number;
+  counts: number;
+  expected: number;
+}
+
+export interface EntryChecks {
+  total: number;
+  filled: number;
+  /** Rows whose counts are not a whole number ≥ 0 (0-based). */
+  unreadable: number[];
+  zeros: number[];
+  outliers: Outlier[];
+  lowCounts: boolean;
+  /** The linear estimate once every row has a readable count. */
+  linear: Reconstruction | null;
+  /** Why there is no estimate yet, or why the engine refused one. */
+  estimateNote: string | null;
+}
+
+const isCount = (x: unknown): x is number => typeof x === "number" && Number.isInteger(x) && x >= 0;
+const positiveOr1 = (x: unknown) => (typeof x === "number" && x > 0 ? x : 1);
+
+export function checkEntry(rows: EntryRow[], conventions: SetupConventions): EntryChecks {
+  const unreadable: number[] = [];
+  const zeros: number[] = [];
+  let filled = 0;
+  rows.forEach((r, i) => {
+    if (r.counts === undefined || r.counts === "") return;
+    filled++;
+    if (!isCount(r.counts)) unreadable.push(i);
+    else if (r.counts === 0) zeros.push(i);
+  });
+  const base = { total: rows.length, filled, unreadable, zeros, outliers: [] as Outlier[], lowCounts: false, linear: null, estimateNote: null };
+  if (filled < rows.length || unreadable.length) {
+    const missing = rows.length - filled;
+    const note = unreadable.length
+      ? `Row${unreadable.length > 1 ? "s" : ""} ${unreadable.map((i) => i + 1).join(", ")} ${unreadable.length > 1 ? "are" : "is"} not a whole number of counts.`
+      : `${missing} of ${rows.length} rows still need counts; the estimate appears when all are in.`;
+    return { ...base, estimateNote: note };
+  }
+  const engineRows: CountsRow[] = rows.map((r) => ({ setting: r.label, counts: r.counts as number, seconds: positiveOr1(r.seconds) }));
+  const sum = engineRows.reduce((a, r) => a + r.counts, 0);
+  const lowCounts = sum / rows.length < LOW_MEAN_COUNT;
+  try {
+    const linear = reconstruct({ rows: engineRows, conventions }, { method: "linear" });
+    const physicalFit = reconstruct({ rows: engineRows, conventions }, { method: "projected" });
+    const largest = Math.max(...engineRows.map((r) => r.counts));
+    const outliers = engineRows.flatMap((r, i) => {
+      const expected = physicalFit.expectedCounts[i];
+      const miss = Math.abs(r.counts - expected);
+      return miss > OUTLIER_SIGMA * Math.sqrt(Math.max(expected, 1)) && miss > OUTLIER_SHARE * largest ? [{ row: i, counts: r.counts, expected }] : [];
+    });
+    return { ...base, lowCounts, linear, outliers };
+  } catch (e) {
+    return { ...base, lowCounts, estimateNote: (e as Error).message };
+  }
+}

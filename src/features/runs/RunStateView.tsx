@@ -1,0 +1,85 @@
+import { useState } from "react";
+import type { ReconstructionDto, ReconstructionMethod } from "@shared/schemas/reconstructions";
+import type { RunDetailDto } from "@shared/schemas/runs";
+import type { BellTarget } from "@shared/schemas/sources";
+import { EmptyState } from "../../components/QueryState";
+import { Panel } from "../../components/Panel";
+import { SegmentedToggle } from "../../components/SegmentedToggle";
+import { DensityPlots } from "../../plots/DensityPlots";
+import { CheckList } from "../stateView/CheckList";
+import { METHOD_NAME } from "../stateView/meritRows";
+import { ScoreCard } from "../stateView/ScoreCard";
+import { Spectrum } from "../stateView/Spectrum";
+import { CorrectionsForm } from "./CorrectionsForm";
+import { FitDetails } from "./FitDetails";
+import { ReconstructionHistory } from "./ReconstructionHistory";
+import { defaultReconstruction, describeCorrections, ofRevision, pickReconstruction } from "./reconstructionChoice";
+
+/** One run's reconstructed state: ρ as bars and numbers, figures of merit, spectrum, warnings. */
+export function RunStateView({ labId, run, sessionWindowNs }: { labId: string; run: RunDetailDto; sessionWindowNs: number | null }) {
+  const [selectedId, setSelectedId] = useState<string | null>(null);
+  const [justMade, setJustMade] = useState<ReconstructionDto | null>(null);
+  const all = justMade && !run.reconstructions.some((r) => r.id === justMade.id) ? [justMade, ...run.reconstructions] : run.reconstructions;
+  const selected = all.find((r) => r.id === selectedId) ?? defaultReconstruction(all, run.revisionNumber);
+  const target = run.source.targetState as BellTarget;
+
+  if (!selected) {
+    return (
+      <EmptyState title="No reconstruction of these counts yet">
+        Choose a method and corrections below to compute one.
+      </EmptyState>
+    );
+  }
+  const current = ofRevision(all, run.revisionNumber);
+  const methods = (Object.keys(METHOD_NAME) as ReconstructionMethod[]).filter((m) => current.some((r) => r.method === m));
+  const switchMethod = (m: ReconstructionMethod) => setSelectedId(pickReconstruction(all, run.revisionNumber, m, selected.corrections)?.id ?? null);
+
+  return (
+    <div className="space-y-4">
+      <div className="flex flex-wrap items-center gap-x-6 gap-y-2">
+        <SegmentedToggle label="Method" options={methods.map((m) => ({ value: m, label: METHOD_NAME[m] }))} value={selected.method} onChange={switchMethod} />
+        <p className="text-sm text-ink-soft">
+          Counts revision {selected.revisionNumber}; {describeCorrections(selected.corrections)}.
+          {selected.revisionNumber !== run.revisionNumber && <strong className="ml-1 text-caution">These are older counts than the current revision {run.revisionNumber}.</strong>}
+        </p>
+      </div>
+      <div className="grid gap-4 xl:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+        <Panel title="Reconstructed state ρ">
+          <DensityPlots rho={selected.rho} sigma={selected.uncertainties?.rho} />
+        </Panel>
+        <div className="space-y-4">
+          <Panel title="Scorecard">
+            <ScoreCard reconstruction={selected} target={target} />
+          </Panel>
+          <Panel title="Things to check">
+            <CheckList reconstruction={selected} />
+          </Panel>
+        </div>
+      </div>
+      <div className="grid gap-4 lg:grid-cols-3">
+        <Panel title="Spectrum of ρ">
+          <Spectrum eigenvalues={selected.eigenvalues} physical={selected.physical} />
+        </Panel>
+        <Panel title="How it was computed">
+          <FitDetails reconstruction={selected} />
+        </Panel>
+        <Panel title="Reconstruct again">
+          <CorrectionsForm
+            key={selected.id}
+            labId={labId}
+            run={run}
+            current={selected}
+            sessionWindowNs={sessionWindowNs}
+            onCreated={(r) => {
+              setJustMade(r);
+              setSelectedId(r.id);
+            }}
+          />
+        </Panel>
+      </div>
+      <Panel title="Every reconstruction of this run">
+        <ReconstructionHistory reconstructions={all} selectedId={selected.id} onSelect={setSelectedId} target={target} currentRevision={run.revisionNumber} />
+      </Panel>
+    </div>
+  );
+}
