@@ -1,5 +1,5 @@
 /**
- * Trend data: every run of one session or one source with all its figures and x-values, so
+ * Trend data: every run of one session, one source or the whole lab with all its figures and x-values, so
  * the client can plot any figure against any parameter. Figures come from stored
  * reconstructions (tomography runs) or are computed from the raw counts (|S| of Bell runs at
  * the default angles, fitted visibilities of fringe runs without background).
@@ -13,6 +13,7 @@ import type { TrendDto, TrendFigureKey, TrendQuery, TrendRunDto } from "@shared/
 import { TREND_FIGURE_KEYS } from "@shared/schemas/trends";
 import type { BellTarget } from "@shared/schemas/sources";
 import { db } from "../db/dataSource";
+import { Lab } from "../entities/Lab";
 import { LabSession } from "../entities/LabSession";
 import { Reconstruction } from "../entities/Reconstruction";
 import { Run } from "../entities/Run";
@@ -51,7 +52,7 @@ export async function trendOf(labId: string, query: TrendQuery): Promise<TrendDt
         recordedAt: run.createdAt.getTime(),
         order: order + 1,
       },
-      figures: figuresOf(run, rows, rec, scope.targetState, notes),
+      figures: figuresOf(run, rows, rec, scope.targetState ?? session.source!.targetState, notes),
       pairRate: pairRate(rows),
       accidentalRate: accidentalRate(rows, session.coincidenceWindowNs),
       reconstructionId: rec?.id ?? null,
@@ -91,10 +92,11 @@ function figuresOf(run: Run, rows: ReturnType<typeof engineRows>, rec: Reconstru
 }
 
 interface Scope {
-  kind: "session" | "source";
+  kind: "session" | "source" | "lab";
   id: string;
   title: string;
-  targetState: BellTarget;
+  /** Null for a whole lab: fidelityTarget then uses each run's own source. */
+  targetState: BellTarget | null;
 }
 
 async function scopeOf(labId: string, query: TrendQuery): Promise<{ scope: Scope; sessions: LabSession[] }> {
@@ -104,10 +106,15 @@ async function scopeOf(labId: string, query: TrendQuery): Promise<{ scope: Scope
     if (!session) throw notFound("Session");
     return { scope: { kind: "session", id: session.id, title: session.title, targetState: session.source!.targetState }, sessions: [session] };
   }
-  const source = await em.findOne(Source, { where: { id: query.sourceId!, labId } });
-  if (!source) throw notFound("Source");
-  const sessions = await em.find(LabSession, { where: { labId, sourceId: source.id }, order: { date: "ASC" } });
-  return { scope: { kind: "source", id: source.id, title: source.name, targetState: source.targetState }, sessions };
+  if (query.sourceId) {
+    const source = await em.findOne(Source, { where: { id: query.sourceId, labId } });
+    if (!source) throw notFound("Source");
+    const sessions = await em.find(LabSession, { where: { labId, sourceId: source.id }, relations: { source: true }, order: { date: "ASC" } });
+    return { scope: { kind: "source", id: source.id, title: source.name, targetState: source.targetState }, sessions };
+  }
+  const lab = await em.findOneByOrFail(Lab, { id: labId });
+  const sessions = await em.find(LabSession, { where: { labId }, relations: { source: true }, order: { date: "ASC" } });
+  return { scope: { kind: "lab", id: lab.id, title: lab.name, targetState: null }, sessions };
 }
 
 async function currentRevisions(runs: Run[]): Promise<Map<string, RunRevision>> {

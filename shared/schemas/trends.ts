@@ -7,8 +7,8 @@ import { RunKindSchema } from "./runs";
 export const TrendParamsSchema = LabIdParamsSchema;
 
 /**
- * The runs of one session or one source, each with every figure and every x-value, so the
- * client can plot any figure against any parameter without asking again.
+ * The runs of one session, one source, or (with neither) the whole lab, each with every figure
+ * and every x-value, so the client can plot any figure against any parameter without asking again.
  * `method` picks which reconstruction of a tomography run supplies the figures (the newest of
  * that method for the run's current counts); `accidentals` prefers one with accidentals
  * subtracted (true) or without (false).
@@ -24,7 +24,7 @@ export const TrendQuerySchema = z
       .default(false),
   })
   .superRefine((q, ctx) => {
-    if (!q.sessionId === !q.sourceId) ctx.addIssue({ code: "custom", path: ["sessionId"], message: "Give exactly one of sessionId or sourceId." });
+    if (q.sessionId && q.sourceId) ctx.addIssue({ code: "custom", path: ["sourceId"], message: "Give a session or a source, not both." });
   });
 export type TrendQuery = z.infer<typeof TrendQuerySchema>;
 
@@ -60,7 +60,8 @@ export const TrendRunSchema = z.object({
 export type TrendRunDto = z.infer<typeof TrendRunSchema>;
 
 export const TrendSchema = z.object({
-  scope: z.object({ kind: z.enum(["session", "source"]), id: z.string().uuid(), title: z.string(), targetState: z.string() }),
+  /** targetState is null for a whole lab, whose sources may aim at different states. */
+  scope: z.object({ kind: z.enum(["session", "source", "lab"]), id: z.string().uuid(), title: z.string(), targetState: z.string().nullable() }),
   method: MethodSchema,
   accidentals: z.boolean(),
   runs: z.array(TrendRunSchema),

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { poisson, randomStream } from "@shared/physics/random";
-import { type FringePoint, fitFringe, fringeBasis, visibilitiesByBasis, visibilityFromExtremes } from "@shared/physics/fringe";
+import { type FringePoint, fitFringe, fringeModelRate, fringeBasis, visibilitiesByBasis, visibilityFromExtremes } from "@shared/physics/fringe";
 
 const DEG = Math.PI / 180;
 /** C(θ) = C₀[1 + V cos 2(θ − θ₀)] + B (physics contract §7, common practice). */
@@ -28,6 +28,7 @@ describe("fringe fit", () => {
       expect(fit.c0).toBeCloseTo(1500, 8);
       expect(fit.chiSquare).toBeLessThan(1e-12);
       expect(fit.converged).toBe(true);
+      for (const theta of [0, 33, 90, 151]) expect(fringeModelRate(fit, theta)).toBeCloseTo(model(1500, v, phase, 0)(theta), 7);
     }
   });
 

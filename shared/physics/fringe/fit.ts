@@ -164,3 +164,8 @@ function checkSpread(points: readonly FringePoint[]): void {
     throw new EngineInputError("invalid_input", `a fringe fit needs counts at 3 or more different analyser angles (modulo 180°); these rows have ${distinct.size}`);
   }
 }
+
+/** The fitted rate r(θ) = C₀[1 + V cos 2(θ − θ₀)] + B (counts per second), e.g. to draw the curve. */
+export function fringeModelRate(fit: Pick<FringeFit, "c0" | "visibility" | "phaseDeg" | "backgroundRate">, thetaDeg: number): number {
+  return fit.c0 * (1 + fit.visibility * Math.cos(2 * (thetaDeg - fit.phaseDeg) * DEG)) + fit.backgroundRate;
+}

@@ -1,0 +1,15 @@
+import { keepPreviousData, useQuery } from "@tanstack/react-query";
+import type { BellAngles } from "@shared/physics/bell";
+import type { BellTestDto } from "@shared/schemas/bell";
+import { apiFetch } from "../../api/client";
+import { queryKeys } from "../../api/queryKeys";
+
+/** CHSH of a Bell-test run; `angles` undefined lets the server pick the standard ones or the rows'. */
+export function useBellTest(labId: string, runId: string, angles: BellAngles | undefined) {
+  const search = angles ? `?${new URLSearchParams(Object.entries(angles).map(([k, v]) => [k, String(v)]))}` : "";
+  return useQuery({
+    queryKey: [...queryKeys.labNotebook(labId), "bell-test", runId, angles ?? null],
+    queryFn: ({ signal }) => apiFetch<BellTestDto>(`/labs/${labId}/runs/${runId}/bell-test${search}`, { signal }),
+    placeholderData: keepPreviousData,
+  });
+}

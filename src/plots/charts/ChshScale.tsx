@@ -1,0 +1,34 @@
+import { CartesianGrid, ComposedChart, ErrorBar, ReferenceArea, ReferenceLine, ResponsiveContainer, Scatter, XAxis, YAxis } from "recharts";
+import { AXIS_LABEL, AXIS_TICK, CHART, seriesStyle } from "./chartTheme";
+import { Marker } from "./SvgLegend";
+
+export interface ChshMark {
+  label: string;
+  value: number;
+  sigma: number;
+}
+
+const TSIRELSON = 2 * Math.SQRT2;
+
+/**
+ * |S| on a number line from 0 to 3 with the local-realist bound 2 and the Tsirelson bound 2√2
+ * (Clauser et al., PRL 23, 880 (1969); Tsirelson, Lett. Math. Phys. 4, 93 (1980)); one row per mark.
+ */
+export function ChshScale({ marks }: { marks: ChshMark[] }) {
+  const data = marks.map((m, i) => ({ ...m, row: i }));
+  return (
+    <ResponsiveContainer width="100%" height="100%">
+      <ComposedChart layout="vertical" margin={{ top: 20, right: 24, bottom: 28, left: 8 }}>
+        <CartesianGrid stroke={CHART.grid} horizontal={false} />
+        <ReferenceArea x1={0} x2={2} fill={CHART.grid} fillOpacity={0.6} />
+        <XAxis type="number" dataKey="value" domain={[0, 3]} ticks={[0, 0.5, 1, 1.5, 2, 2.5, 3]} tick={AXIS_TICK} stroke={CHART.faint} label={{ value: "|S|", position: "insideBottom", offset: -16, ...AXIS_LABEL }} />
+        <YAxis type="number" dataKey="row" domain={[-0.6, marks.length - 0.4]} ticks={marks.map((_, i) => i)} tickFormatter={(i: number) => marks[i]?.label ?? ""} reversed width={170} tick={AXIS_TICK} stroke={CHART.faint} />
+        <ReferenceLine x={2} stroke={CHART.ink} strokeWidth={1.5} label={{ value: "local bound 2", position: "top", fill: CHART.ink, fontSize: 12 }} />
+        <ReferenceLine x={TSIRELSON} stroke={CHART.caution} strokeDasharray="5 3" label={{ value: "2√2", position: "top", fill: CHART.caution, fontSize: 12 }} />
+        <Scatter data={data} dataKey="row" isAnimationActive={false} shape={(p: { cx?: number; cy?: number; payload?: { row: number } }) => <Marker cx={p.cx} cy={p.cy} style={seriesStyle(p.payload?.row ?? 0)} size={5.5} />}>
+          <ErrorBar dataKey="sigma" direction="x" stroke={CHART.ink} width={5} />
+        </Scatter>
+      </ComposedChart>
+    </ResponsiveContainer>
+  );
+}
