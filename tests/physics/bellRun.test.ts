@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { STANDARD_BELL_ANGLES, analyseBellRun, armAnglesForPolariser, settingPairs } from "@shared/physics/bell";
+import { STANDARD_BELL_ANGLES, analyseBellRun, armAnglesForPolariser, bellDiagonalState, bellTestSettings, fringeScanSettings, predictedChsh, settingPairs } from "@shared/physics/bell";
 import type { CountsRow } from "@shared/physics/types";
 
 /** Noiseless rows for φ⁺, whose pass probability at (α, β) is ½cos²(α − β) (follows from the definition). */
@@ -43,5 +43,28 @@ describe("a stored Bell-test run", () => {
 
   it("names the missing row when the standard angles are incomplete", () => {
     expect(() => analyseBellRun(phiPlusRun().slice(1))).toThrow(/no row was measured at A 0°, B 22\.5°/);
+  });
+});
+
+describe("Bell-diagonal states and the measured layouts", () => {
+  it("ψ⁻ is t = (−1, −1, −1); S at the standard angles is √2(t_x + t_z), the maximum 2√(t_z² + t_x²) for |t_x| = |t_y| (Horodecki et al., Phys. Lett. A 200, 340 (1995))", () => {
+    const psiMinus = bellDiagonalState(-1, -1, -1);
+    expect(psiMinus.re[1][1]).toBeCloseTo(0.5, 14);
+    expect(psiMinus.re[1][2]).toBeCloseTo(-0.5, 14);
+    expect(psiMinus.re[0][0]).toBeCloseTo(0, 14);
+    const rho = bellDiagonalState(-0.95, -0.95, -0.98);
+    const p = predictedChsh(rho, STANDARD_BELL_ANGLES);
+    expect(p.s).toBeCloseTo(Math.SQRT2 * (-0.95 - 0.98), 12);
+    expect(p.maximum).toBeCloseTo(2 * Math.hypot(0.95, 0.98), 12);
+    expect(() => bellDiagonalState(1, 1, 1)).toThrow(/not a physical/);
+  });
+
+  it("the sixteen Bell-test settings are what the CHSH analysis looks for", () => {
+    const settings = bellTestSettings(STANDARD_BELL_ANGLES);
+    expect(settings).toHaveLength(16);
+    const rows = settings.map((setting) => ({ setting, counts: 100 }));
+    const r = analyseBellRun(rows);
+    expect(r.correlations.map((c) => c.rows)).toEqual([[0, 1, 2, 3], [4, 5, 6, 7], [8, 9, 10, 11], [12, 13, 14, 15]]);
+    expect(fringeScanSettings(45, [0, 90])).toEqual([[{ qwpDeg: 45, hwpDeg: 22.5 }, { qwpDeg: 0, hwpDeg: 0 }], [{ qwpDeg: 45, hwpDeg: 22.5 }, { qwpDeg: 90, hwpDeg: 45 }]]);
   });
 });

@@ -5,3 +5,4 @@ export * from "./prediction";
 export * from "./settingAngles";
 export * from "./bellRun";
 export * from "./basisRates";
+export * from "./layouts";
