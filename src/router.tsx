@@ -1,6 +1,18 @@
 import { createBrowserRouter } from "react-router-dom";
 import { AppLayout } from "./components/AppLayout";
 import { HomePage } from "./pages/HomePage";
+import { AccountPage } from "./pages/AccountPage";
+import { DevOutboxPage } from "./pages/DevOutboxPage";
+import { ForgotPasswordPage } from "./pages/ForgotPasswordPage";
+import { InvitationPage } from "./pages/InvitationPage";
+import { LabPage } from "./pages/LabPage";
+import { MembersPage } from "./pages/MembersPage";
+import { NewLabPage } from "./pages/NewLabPage";
+import { ResetPasswordPage } from "./pages/ResetPasswordPage";
+import { SignInPage } from "./pages/SignInPage";
+import { SignUpPage } from "./pages/SignUpPage";
+import { VerifyEmailPage } from "./pages/VerifyEmailPage";
+import { HomeGate } from "./features/labs/HomeGate";
 import { NotFoundPage } from "./pages/NotFoundPage";
 import { StatusPage } from "./pages/StatusPage";
 import { BellTestPage } from "./pages/BellTestPage";
@@ -11,7 +23,20 @@ export const router = createBrowserRouter([
   {
     element: <AppLayout />,
     children: [
-      { index: true, element: <HomePage /> },
+      { index: true, element: <HomeGate signedOut={<HomePage />} /> },
+      // Accounts, labs and people
+      { path: "sign-in", element: <SignInPage /> },
+      { path: "sign-up", element: <SignUpPage /> },
+      { path: "verify-email", element: <VerifyEmailPage /> },
+      { path: "forgot-password", element: <ForgotPasswordPage /> },
+      { path: "reset-password", element: <ResetPasswordPage /> },
+      { path: "invitation", element: <InvitationPage /> },
+      { path: "account", element: <AccountPage /> },
+      { path: "dev/outbox", element: <DevOutboxPage /> },
+      { path: "labs/new", element: <NewLabPage /> },
+      { path: "labs/:labId/members", element: <MembersPage /> },
+      // Until the notebook's lab home page takes this route.
+      { path: "labs/:labId", element: <LabPage /> },
       // Bell tests, fringe scans and trends
       { path: "labs/:labId/runs/:runId/bell-test", element: <BellTestPage /> },
       { path: "labs/:labId/runs/:runId/fringe-fit", element: <FringeScanPage /> },

@@ -1,5 +1,5 @@
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import type { Me, SignIn } from "@shared/schemas/auth";
+import type { ChangePassword, EmailOnly, Me, Notice, ResetPassword, SignIn, SignUp, SignUpResult, UpdateAccount } from "@shared/schemas/auth";
 import { ApiError, apiFetch } from "./client";
 import { queryKeys } from "./queryKeys";
 
@@ -42,4 +42,45 @@ export function useSignOut() {
     mutationFn: () => apiFetch<void>("/auth/sign-out", { method: "POST" }),
     onSuccess: () => startOver(null),
   });
+}
+
+export function useSignUp() {
+  return useMutation({ mutationFn: (body: SignUp) => apiFetch<SignUpResult>("/auth/sign-up", { method: "POST", body }) });
+}
+
+/** Opening the e-mailed link confirms the address and signs in. */
+export function useVerifyEmail() {
+  const startOver = useStartOver();
+  return useMutation({
+    mutationFn: (token: string) => apiFetch<Me>("/auth/verify-email", { method: "POST", body: { token } }),
+    onSuccess: (me) => startOver(me),
+  });
+}
+
+export function useResendVerification() {
+  return useMutation({ mutationFn: (body: EmailOnly) => apiFetch<Notice>("/auth/resend-verification", { method: "POST", body }) });
+}
+
+export function useRequestPasswordReset() {
+  return useMutation({ mutationFn: (body: EmailOnly) => apiFetch<Notice>("/auth/password-reset", { method: "POST", body }) });
+}
+
+export function useResetPassword() {
+  const startOver = useStartOver();
+  return useMutation({
+    mutationFn: (body: ResetPassword) => apiFetch<Me>("/auth/password-reset/confirm", { method: "POST", body }),
+    onSuccess: (me) => startOver(me),
+  });
+}
+
+export function useUpdateAccount() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (body: UpdateAccount) => apiFetch<Me>("/account", { method: "PATCH", body }),
+    onSuccess: (me) => qc.setQueryData(queryKeys.me, me),
+  });
+}
+
+export function useChangePassword() {
+  return useMutation({ mutationFn: (body: ChangePassword) => apiFetch<void>("/account/password", { method: "POST", body }) });
 }

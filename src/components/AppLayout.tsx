@@ -1,4 +1,5 @@
 import { Outlet } from "react-router-dom";
+import { HeaderAccountArea } from "../features/account/HeaderAccountArea";
 import { AppHeader } from "./AppHeader";
 
 /** Page frame: skip link, header, main content, footer. */
@@ -8,7 +9,7 @@ export function AppLayout() {
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-paper-raised focus:px-3 focus:py-2">
         Skip to content
       </a>
-      <AppHeader />
+      <AppHeader right={<HeaderAccountArea />} />
       <main id="main" className="mx-auto w-full max-w-7xl flex-1 px-4 py-6">
         <Outlet />
       </main>

@@ -35,7 +35,7 @@ export function DataTable<T>({ caption, columns, rows, rowKey, sort, onSort, emp
         <thead>
           <tr className="border-b-2 border-paper-sunk">
             {columns.map((c) => {
-              const active = sort?.key === c.sortKey;
+              const active = !!c.sortKey && sort?.key === c.sortKey;
               const ariaSort = active ? (sort!.order === "asc" ? "ascending" : "descending") : undefined;
               return (
                 <th key={c.key} scope="col" aria-sort={c.sortKey ? (ariaSort ?? "none") : undefined} className={`px-2 py-1.5 font-bold text-ink-soft ${c.numeric ? "text-right" : "text-left"}`}>
