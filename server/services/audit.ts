@@ -12,7 +12,7 @@ export interface AuditInput {
 
 /** Records one write; call it inside the write's own transaction so both stand or fall together. */
 export async function recordAudit(em: EntityManager, actor: AuthUser | null, input: AuditInput): Promise<void> {
-  await em.insert(AuditEntry, { ...input, changes: input.changes ?? {}, actorId: actor?.id ?? null });
+  await em.save(em.create(AuditEntry, { ...input, changes: input.changes ?? {}, actorId: actor?.id ?? null }));
 }
 
 /** `{ field: { from, to } }` for the fields of `patch` whose value differs from `before`. */

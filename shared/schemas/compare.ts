@@ -13,7 +13,8 @@ const uuidList = (what: string) =>
 /**
  * `GET /api/labs/:labId/compare?runs=a,b,c&method=mle` — the newest reconstruction of that
  * method for each run's current counts; or `?reconstructions=x,y` to pick them exactly.
- * Differences are "this item minus the first".
+ * Differences are "this item minus the first". With neither, the comparison is empty (nothing
+ * chosen yet).
  */
 export const CompareQuerySchema = z
   .object({
@@ -21,7 +22,7 @@ export const CompareQuerySchema = z
     reconstructions: uuidList("Reconstruction").optional(),
     method: MethodSchema.default("mle"),
   })
-  .refine((q) => !!q.runs !== !!q.reconstructions, { message: "Give either runs or reconstructions (comma-separated ids).", path: ["runs"] });
+  .refine((q) => !(q.runs && q.reconstructions), { message: "Give either runs or reconstructions, not both.", path: ["runs"] });
 export type CompareQuery = z.infer<typeof CompareQuerySchema>;
 
 export const CompareDifferenceSchema = z.object({
@@ -32,8 +33,8 @@ export const CompareDifferenceSchema = z.object({
   rho: MatrixSchema,
   /** ½‖ρ − ρ₁‖₁ (Nielsen & Chuang, Quantum Computation and Quantum Information, 2000, §9.2). */
   traceDistance: z.number(),
-  /** Uhlmann–Jozsa fidelity between the two states (physics contract §6). */
-  fidelityBetween: z.number(),
+  /** Uhlmann–Jozsa fidelity between the two states (physics contract §6); null if either is not physical. */
+  fidelityBetween: z.number().nullable(),
 });
 
 export const CompareSchema = z.object({

@@ -26,7 +26,7 @@ export type Corrections = z.infer<typeof CorrectionsSchema>;
 export const CreateReconstructionSchema = z.object({
   method: MethodSchema,
   corrections: CorrectionsSchema.default({ accidentals: false, windowNs: null, efficiencies: null, drift: "none" }),
-  monteCarloSamples: z.number().int("Samples must be a whole number.").min(0).max(LIMITS.monteCarloMax, `At most ${LIMITS.monteCarloMax} samples.`).default(LIMITS.monteCarloDefault),
+  monteCarloSamples: z.number().int("Samples must be a whole number.").min(0, "Samples cannot be negative.").max(LIMITS.monteCarloMax, `At most ${LIMITS.monteCarloMax} samples.`).refine((n) => n !== 1, "Use 0 (no uncertainties) or at least 2 samples.").default(LIMITS.monteCarloDefault),
   /** Seed of the Monte Carlo draws; stored so the uncertainties reproduce. Random when absent. */
   seed: z.number().int().min(0).max(2 ** 31 - 1).optional(),
 });

@@ -24,12 +24,14 @@ export const ArmAnglesSchema = z.object({
   port: z.enum(["transmitted", "reflected"], "Port is transmitted or reflected.").optional(),
 });
 
+const LABEL_PATTERN = /^[HVDARL]{1,4}$/;
+
 /** A setting label: one letter per photon (photon A first), each of H V D A R L. */
 export const SettingLabelSchema = z
   .string()
   .trim()
   .toUpperCase()
-  .regex(/^[HVDARL]{1,4}$/, "Setting is 1–4 letters from H, V, D, A, R, L (photon A first), e.g. HV.");
+  .regex(LABEL_PATTERN, "Setting is 1–4 letters from H, V, D, A, R, L (photon A first), e.g. HV.");
 
 const count = (what: string) => z.number(`${what} must be a number.`).int(`${what} must be a whole number.`).min(0, `${what} cannot be negative.`).max(1e15, `${what} is implausibly large.`);
 
@@ -70,6 +72,8 @@ function checkRowsAgainstSet(settingSetId: SettingSetId, kind: RunKind, rows: Co
   const wanted = new Set(set.labels);
   const seen = new Map<string, number>();
   rows.forEach((row, i) => {
+    // Malformed labels already have their own message; zod runs this refinement regardless.
+    if (typeof row.setting === "string" && !LABEL_PATTERN.test(row.setting)) return;
     if (typeof row.setting !== "string") {
       ctx.addIssue({ code: "custom", path: ["rows", i, "setting"], message: `The ${settingSetId} set is entered by labels; use the "custom" set for rows given as angles.` });
     } else if (!wanted.has(row.setting)) {
@@ -79,7 +83,8 @@ function checkRowsAgainstSet(settingSetId: SettingSetId, kind: RunKind, rows: Co
     } else seen.set(row.setting, i);
   });
   const missing = set.labels.filter((l) => !seen.has(l));
-  if (missing.length && missing.length < set.labels.length) {
+  const malformed = rows.some((r) => typeof r.setting === "string" && !LABEL_PATTERN.test(r.setting));
+  if (!malformed && missing.length && missing.length < set.labels.length) {
     ctx.addIssue({ code: "custom", path: ["rows"], message: `The ${settingSetId} set needs ${set.labels.length} rows; missing: ${missing.slice(0, 8).join(", ")}${missing.length > 8 ? ", …" : ""}.` });
   }
 }
@@ -96,7 +101,7 @@ const RunFieldsSchema = z.object({
 /** Options for the reconstructions computed when a run (or a revision) is saved. */
 export const InitialReconstructionSchema = z.object({
   corrections: CorrectionsSchema.default({ accidentals: false, windowNs: null, efficiencies: null, drift: "none" }),
-  monteCarloSamples: z.number().int("Samples must be a whole number.").min(0).max(LIMITS.monteCarloMax, `At most ${LIMITS.monteCarloMax} samples.`).default(LIMITS.monteCarloDefault),
+  monteCarloSamples: z.number().int("Samples must be a whole number.").min(0, "Samples cannot be negative.").max(LIMITS.monteCarloMax, `At most ${LIMITS.monteCarloMax} samples.`).refine((n) => n !== 1, "Use 0 (no uncertainties) or at least 2 samples.").default(LIMITS.monteCarloDefault),
 });
 
 export const CreateRunSchema = RunFieldsSchema.extend({
@@ -119,11 +124,18 @@ export const CreateRevisionSchema = z.object({
 });
 export type CreateRevision = z.infer<typeof CreateRevisionSchema>;
 
-/** Fields sent with a CSV upload (multipart form fields beside `file`). */
+/**
+ * Fields sent with a CSV upload (multipart form fields beside `file`, our counts CSV; see README
+ * "Run file format"). Without settingSetId the set is recognised from the rows (tomo16, tomo36,
+ * else custom); without name the file name is used.
+ */
 export const UploadRunFieldsSchema = z.object({
   name: RunFieldsSchema.shape.name.optional(),
-  notes: z.string().max(LIMITS.notesLength).optional(),
+  notes: z.string().max(LIMITS.notesLength, `Notes are at most ${LIMITS.notesLength} characters.`).optional(),
+  settingSetId: SettingSetIdSchema.optional(),
+  pumpPowerMw: z.coerce.number("Pump power must be a number.").min(0, "Pump power cannot be negative.").optional(),
 });
+export type UploadRunFields = z.infer<typeof UploadRunFieldsSchema>;
 
 export const RunListQuerySchema = listQuery(["createdAt", "name", "kind", "fidelity", "concurrence", "purity", "pumpPowerMw"], "createdAt").extend({
   sessionId: UuidSchema("Session").optional(),

@@ -29,6 +29,8 @@ import { LabMembership } from "../../server/entities/LabMembership";
 import { User } from "../../server/entities/User";
 import { newLinkToken } from "../../server/services/linkTokens";
 import { TEST_PASSWORD, createUser, labWithRoles, type LabFixture, type TestClient } from "../support/clients";
+import { psiMinusRows } from "../support/notebook";
+import { writeTomographyCsv } from "@shared/formats/tomographyCsv";
 import { startTestApp, type TestApp } from "../support/testApp";
 
 const CALLERS = ["anonymous", "outsider", "viewer", "member", "owner"] as const;
@@ -49,6 +51,12 @@ interface Ctx {
   source(): Promise<string>;
   /** A lab session in the lab (created once per row). */
   labSession(): Promise<string>;
+  /** A tomography run in that session, without Monte Carlo (created once per row). */
+  run(): Promise<{ id: string; rows: object[]; reconstructionId: string }>;
+  /** A second run in the same session, for comparisons (created once per row). */
+  secondRun(): Promise<{ id: string; rows: object[]; reconstructionId: string }>;
+  /** The attachment of a run uploaded as a counts file (created once per row). */
+  attachment(): Promise<string>;
   /** A new viewer of the lab, e.g. someone to remove. */
   addViewer(): Promise<User>;
   /** An open invitation into the lab; returns its id and the link's token. */
@@ -57,9 +65,16 @@ interface Ctx {
   emailLink(purpose: "verify-email" | "reset-password"): Promise<string>;
 }
 
+/** `file`: send multipart/form-data with this file in the field "file" (and `body` as text fields). */
+interface RowRequest {
+  path: string;
+  body?: object;
+  file?: { name: string; content: string };
+}
+
 interface Row {
   expect: Expected;
-  request: (ctx: Ctx, caller: Caller) => Promise<{ path: string; body?: object }> | { path: string; body?: object };
+  request: (ctx: Ctx, caller: Caller) => Promise<RowRequest> | RowRequest;
 }
 
 const fresh = (tag: string) => `${tag}-${randomUUID().slice(0, 8)}@matrix.example`;
@@ -116,6 +131,31 @@ const ROWS: Record<string, Row> = {
   "POST /api/labs/:labId/sessions": { expect: LAB_WRITE(201), request: async (c) => ({ path: `/api/labs/${c.lab}/sessions`, body: { sourceId: await c.source(), title: "Alignment", date: today } }) },
   "GET /api/labs/:labId/sessions/:sessionId": { expect: LAB_READ(), request: async (c) => ({ path: `/api/labs/${c.lab}/sessions/${await c.labSession()}` }) },
   "PATCH /api/labs/:labId/sessions/:sessionId": { expect: LAB_WRITE(), request: async (c) => ({ path: `/api/labs/${c.lab}/sessions/${await c.labSession()}`, body: { title: "Renamed session" } }) },
+
+  // Notebook: runs, reconstructions, comparisons, lab home
+  "GET /api/labs/:labId/home": { expect: LAB_READ(), request: (c) => ({ path: `/api/labs/${c.lab}/home` }) },
+  "GET /api/labs/:labId/runs": { expect: LAB_READ(), request: (c) => ({ path: `/api/labs/${c.lab}/runs` }) },
+  "POST /api/labs/:labId/sessions/:sessionId/runs": {
+    expect: LAB_WRITE(201),
+    request: async (c) => ({ path: `/api/labs/${c.lab}/sessions/${await c.labSession()}/runs`, body: { settingSetId: "tomo16", name: "Matrix run", rows: psiMinusRows(), reconstruction: { monteCarloSamples: 0 } } }),
+  },
+  "POST /api/labs/:labId/sessions/:sessionId/runs/upload": {
+    expect: LAB_WRITE(201),
+    request: async (c) => ({ path: `/api/labs/${c.lab}/sessions/${await c.labSession()}/runs/upload`, file: { name: "matrix.csv", content: writeTomographyCsv(psiMinusRows()) } }),
+  },
+  "GET /api/labs/:labId/attachments/:attachmentId": { expect: LAB_READ(), request: async (c) => ({ path: `/api/labs/${c.lab}/attachments/${await c.attachment()}` }) },
+  "GET /api/labs/:labId/runs/:runId": { expect: LAB_READ(), request: async (c) => ({ path: `/api/labs/${c.lab}/runs/${(await c.run()).id}` }) },
+  "PATCH /api/labs/:labId/runs/:runId": { expect: LAB_WRITE(), request: async (c) => ({ path: `/api/labs/${c.lab}/runs/${(await c.run()).id}`, body: { notes: "Checked" } }) },
+  "POST /api/labs/:labId/runs/:runId/revisions": {
+    expect: LAB_WRITE(201),
+    request: async (c) => ({ path: `/api/labs/${c.lab}/runs/${(await c.run()).id}/revisions`, body: { reason: "Matrix correction", rows: (await c.run()).rows, reconstruction: { monteCarloSamples: 0 } } }),
+  },
+  "POST /api/labs/:labId/runs/:runId/reconstructions": {
+    expect: LAB_WRITE(201),
+    request: async (c) => ({ path: `/api/labs/${c.lab}/runs/${(await c.run()).id}/reconstructions`, body: { method: "linear", monteCarloSamples: 0, corrections: { accidentals: true } } }),
+  },
+  "GET /api/labs/:labId/reconstructions/:reconstructionId": { expect: LAB_READ(), request: async (c) => ({ path: `/api/labs/${c.lab}/reconstructions/${(await c.run()).reconstructionId}` }) },
+  "GET /api/labs/:labId/compare": { expect: LAB_READ(), request: async (c) => ({ path: `/api/labs/${c.lab}/compare?runs=${(await c.run()).id},${(await c.secondRun()).id}` }) },
 };
 
 function once<T>(make: () => Promise<T>): () => Promise<T> {
@@ -131,13 +171,27 @@ function makeCtx(t: TestApp, f: LabFixture): Ctx {
     return res.body.id;
   };
   const source = once(async () => created(await owner.post(`/api/labs/${lab}/sources`, { name: unique("Matrix source") }), "a source"));
-  const labSession = once(async () => created(await owner.post(`/api/labs/${lab}/sessions`, { sourceId: await source(), title: unique("Matrix session"), date: today }), "a lab session"));
+  const labSession = once(async () => created(await owner.post(`/api/labs/${lab}/sessions`, { sourceId: await source(), title: unique("Matrix session"), date: today, coincidenceWindowNs: 3 }), "a lab session"));
+  const newRun = async (seed: number) => {
+    const res = await owner.post(`/api/labs/${lab}/sessions/${await labSession()}/runs`, { settingSetId: "tomo16", name: unique("Matrix run"), rows: psiMinusRows({ seed }), reconstruction: { monteCarloSamples: 0 } });
+    return { id: await created(res, "a run"), rows: res.body.rows, reconstructionId: res.body.reconstructions[0].id };
+  };
+  const run = once(() => newRun(1));
+  const secondRun = once(() => newRun(2));
+  const attachment = once(async () => {
+    const res = await owner.post(`/api/labs/${lab}/sessions/${await labSession()}/runs/upload`).attach("file", Buffer.from(writeTomographyCsv(psiMinusRows({ seed: 3 }))), "matrix.csv");
+    await created(res, "an uploaded run");
+    return res.body.attachments[0].id as string;
+  });
   return {
     t,
     f,
     lab,
     source,
     labSession,
+    run,
+    secondRun,
+    attachment,
     async addViewer() {
       const user = await createUser(t, "Extra viewer");
       await t.dataSource.getRepository(LabMembership).save({ labId: lab, userId: user.id, role: "viewer" });
@@ -199,8 +253,8 @@ describe("role matrix: every route × anonymous, outsider, viewer, member, owner
       const got: Partial<Expected> = {};
       const bodies: Partial<Record<Caller, unknown>> = {};
       for (const caller of CALLERS) {
-        const { path, body } = await row.request(ctx, caller);
-        const res = await call(f.clients[caller], method, path, body);
+        const { path, body, file } = await row.request(ctx, caller);
+        const res = file ? await f.clients[caller].post(path).attach("file", Buffer.from(file.content), file.name) : await call(f.clients[caller], method, path, body);
         got[caller] = res.status;
         bodies[caller] = res.body;
       }

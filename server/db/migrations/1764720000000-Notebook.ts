@@ -10,6 +10,8 @@ import type { MigrationInterface, QueryRunner } from "typeorm";
  * their work: created_by becomes NULL.
  * Child rows repeat lab_id with a composite foreign key, so a row can never point into another
  * lab and every list query filters on one indexed column.
+ * Timestamps default to clock_timestamp(), not now(): rows written in one transaction (a run
+ * with its reconstructions, the seed) still get their true order.
  */
 export class Notebook1764720000000 implements MigrationInterface {
   name = "Notebook1764720000000";
@@ -33,8 +35,8 @@ export class Notebook1764720000000 implements MigrationInterface {
         target_state text NOT NULL DEFAULT 'psi-' CHECK (target_state IN ('phi+', 'phi-', 'psi+', 'psi-')),
         notes text NOT NULL DEFAULT '' CHECK (length(notes) <= 20000),
         created_by_id uuid REFERENCES users(id) ON DELETE SET NULL,
-        created_at timestamptz NOT NULL DEFAULT now(),
-        updated_at timestamptz NOT NULL DEFAULT now(),
+        created_at timestamptz NOT NULL DEFAULT clock_timestamp(),
+        updated_at timestamptz NOT NULL DEFAULT clock_timestamp(),
         UNIQUE (lab_id, id)
       )`);
     await q.query(`CREATE UNIQUE INDEX sources_lab_name_key ON sources (lab_id, lower(name))`);
@@ -58,8 +60,8 @@ export class Notebook1764720000000 implements MigrationInterface {
         notes text NOT NULL DEFAULT '' CHECK (length(notes) <= 20000),
         notes_private boolean NOT NULL DEFAULT false,
         created_by_id uuid REFERENCES users(id) ON DELETE SET NULL,
-        created_at timestamptz NOT NULL DEFAULT now(),
-        updated_at timestamptz NOT NULL DEFAULT now(),
+        created_at timestamptz NOT NULL DEFAULT clock_timestamp(),
+        updated_at timestamptz NOT NULL DEFAULT clock_timestamp(),
         UNIQUE (lab_id, id),
         FOREIGN KEY (lab_id, source_id) REFERENCES sources (lab_id, id)
       )`);
@@ -78,8 +80,8 @@ export class Notebook1764720000000 implements MigrationInterface {
         conditions jsonb NOT NULL DEFAULT '{}' CHECK (jsonb_typeof(conditions) = 'object'),
         current_revision integer NOT NULL DEFAULT 1 CHECK (current_revision >= 1),
         created_by_id uuid REFERENCES users(id) ON DELETE SET NULL,
-        created_at timestamptz NOT NULL DEFAULT now(),
-        updated_at timestamptz NOT NULL DEFAULT now(),
+        created_at timestamptz NOT NULL DEFAULT clock_timestamp(),
+        updated_at timestamptz NOT NULL DEFAULT clock_timestamp(),
         UNIQUE (lab_id, id),
         FOREIGN KEY (lab_id, session_id) REFERENCES lab_sessions (lab_id, id)
       )`);
@@ -98,7 +100,7 @@ export class Notebook1764720000000 implements MigrationInterface {
         reason text NOT NULL DEFAULT '' CHECK (length(reason) <= 500),
         changes jsonb NOT NULL DEFAULT '[]' CHECK (jsonb_typeof(changes) = 'array'),
         created_by_id uuid REFERENCES users(id) ON DELETE SET NULL,
-        created_at timestamptz NOT NULL DEFAULT now(),
+        created_at timestamptz NOT NULL DEFAULT clock_timestamp(),
         UNIQUE (run_id, number),
         UNIQUE (run_id, id),
         FOREIGN KEY (lab_id, run_id) REFERENCES runs (lab_id, id) ON DELETE CASCADE
@@ -133,7 +135,7 @@ export class Notebook1764720000000 implements MigrationInterface {
         warnings jsonb NOT NULL DEFAULT '[]' CHECK (jsonb_typeof(warnings) = 'array'),
         engine_version text NOT NULL CHECK (length(engine_version) BETWEEN 1 AND 40),
         created_by_id uuid REFERENCES users(id) ON DELETE SET NULL,
-        created_at timestamptz NOT NULL DEFAULT now(),
+        created_at timestamptz NOT NULL DEFAULT clock_timestamp(),
         CHECK ((monte_carlo_samples = 0) = (uncertainties IS NULL)),
         FOREIGN KEY (lab_id, run_id) REFERENCES runs (lab_id, id) ON DELETE CASCADE,
         FOREIGN KEY (run_id, revision_id) REFERENCES run_revisions (run_id, id) ON DELETE CASCADE
@@ -156,7 +158,7 @@ export class Notebook1764720000000 implements MigrationInterface {
         sha256 text NOT NULL CHECK (sha256 ~ '^[0-9a-f]{64}$'),
         content bytea NOT NULL,
         created_by_id uuid REFERENCES users(id) ON DELETE SET NULL,
-        created_at timestamptz NOT NULL DEFAULT now(),
+        created_at timestamptz NOT NULL DEFAULT clock_timestamp(),
         FOREIGN KEY (lab_id, run_id) REFERENCES runs (lab_id, id) ON DELETE CASCADE
       )`);
     await q.query(`CREATE INDEX attachments_run_idx ON attachments (run_id)`);
@@ -173,7 +175,7 @@ export class Notebook1764720000000 implements MigrationInterface {
         entity_type text NOT NULL CHECK (length(entity_type) BETWEEN 1 AND 40),
         entity_id uuid NOT NULL,
         changes jsonb NOT NULL DEFAULT '{}' CHECK (jsonb_typeof(changes) = 'object'),
-        created_at timestamptz NOT NULL DEFAULT now()
+        created_at timestamptz NOT NULL DEFAULT clock_timestamp()
       )`);
     await q.query(`CREATE INDEX audit_entries_lab_idx ON audit_entries (lab_id, created_at DESC)`);
     await q.query(`CREATE INDEX audit_entries_entity_idx ON audit_entries (entity_type, entity_id, created_at DESC)`);

@@ -1,0 +1,107 @@
+import { In, type EntityManager } from "typeorm";
+import type { RunListQuery } from "@shared/schemas/runs";
+import { db } from "../db/dataSource";
+import { Attachment } from "../entities/Attachment";
+import { Reconstruction } from "../entities/Reconstruction";
+import { Run } from "../entities/Run";
+import { RunRevision } from "../entities/RunRevision";
+import { notFound } from "../http/errors";
+import { containsPattern, pageWindow } from "./listing";
+
+/** A run with what its summary shows: current counts and the headline reconstruction. */
+export interface RunSummary {
+  run: Run;
+  rowCount: number;
+  totalCounts: number;
+  headline: Reconstruction | null;
+}
+
+export interface RunDetail extends RunSummary {
+  revisions: RunRevision[];
+  reconstructions: Reconstruction[];
+  attachments: Attachment[];
+}
+
+/** SQL for the fidelity of a reconstruction `h` to its source's target state. */
+const TARGET_FIDELITY = `(h.metrics->>(CASE s.target_state WHEN 'phi+' THEN 'fidelityPhiPlus' WHEN 'phi-' THEN 'fidelityPhiMinus' WHEN 'psi+' THEN 'fidelityPsiPlus' ELSE 'fidelityPsiMinus' END))::float8`;
+
+const SORT_SQL: Record<RunListQuery["sort"], string> = {
+  createdAt: "r.created_at",
+  name: "lower(r.name)",
+  kind: "r.kind",
+  fidelity: TARGET_FIDELITY,
+  concurrence: "(h.metrics->>'concurrence')::float8",
+  purity: "(h.metrics->>'purity')::float8",
+  pumpPowerMw: "COALESCE((r.conditions->>'pumpPowerMw')::float8, ls.pump_power_mw)",
+};
+
+/**
+ * The headline of a run: its newest maximum-likelihood reconstruction of the current revision
+ * (the one a user chose last, e.g. with accidentals subtracted).
+ */
+const HEADLINE_JOIN = `
+  JOIN run_revisions rv ON rv.run_id = r.id AND rv.number = r.current_revision
+  LEFT JOIN LATERAL (
+    SELECT rc.id, rc.metrics FROM reconstructions rc
+    WHERE rc.revision_id = rv.id AND rc.method = 'mle'
+    ORDER BY rc.created_at DESC, rc.id DESC LIMIT 1
+  ) h ON true`;
+
+export async function listRuns(labId: string, query: RunListQuery): Promise<{ items: RunSummary[]; total: number }> {
+  const params: unknown[] = [labId];
+  const where = ["r.lab_id = $1"];
+  const filter = (sql: (p: string) => string, value: unknown) => {
+    params.push(value);
+    where.push(sql(`$${params.length}`));
+  };
+  if (query.sessionId) filter((p) => `r.session_id = ${p}`, query.sessionId);
+  if (query.sourceId) filter((p) => `ls.source_id = ${p}`, query.sourceId);
+  if (query.kind) filter((p) => `r.kind = ${p}`, query.kind);
+  if (query.q) filter((p) => `(r.name ILIKE ${p} OR r.notes ILIKE ${p} OR ls.title ILIKE ${p} OR s.name ILIKE ${p})`, containsPattern(query.q));
+  const from = `FROM runs r JOIN lab_sessions ls ON ls.id = r.session_id JOIN sources s ON s.id = ls.source_id ${HEADLINE_JOIN} WHERE ${where.join(" AND ")}`;
+  const { take, skip } = pageWindow(query.page, query.pageSize);
+  const dir = query.order === "asc" ? "ASC" : "DESC";
+  const [{ n }] = await db().query(`SELECT count(*) AS n ${from}`, params);
+  const rows: Array<{ id: string }> = await db().query(
+    `SELECT r.id ${from} ORDER BY ${SORT_SQL[query.sort]} ${dir} NULLS LAST, r.created_at DESC, r.id LIMIT ${take} OFFSET ${skip}`,
+    params,
+  );
+  return { items: await loadRunSummaries(rows.map((r) => r.id)), total: Number(n) };
+}
+
+/** Summaries for the given run ids, in the same order. */
+export async function loadRunSummaries(ids: string[], em: EntityManager = db().manager): Promise<RunSummary[]> {
+  if (!ids.length) return [];
+  const runs = await em.find(Run, { where: { id: In(ids) }, relations: { session: { source: true }, createdBy: true } });
+  const heads: Array<{ run_id: string; row_count: number; total_counts: number; headline_id: string | null }> = await em.query(
+    `SELECT r.id AS run_id, rv.row_count, rv.total_counts, h.id AS headline_id
+     FROM runs r ${HEADLINE_JOIN}
+     WHERE r.id = ANY($1)`,
+    [ids],
+  );
+  const headlineIds = heads.map((h) => h.headline_id).filter((x): x is string => !!x);
+  const headlines = headlineIds.length ? await em.findBy(Reconstruction, { id: In(headlineIds) }) : [];
+  const byId = new Map(runs.map((r) => [r.id, r]));
+  const headOf = new Map(heads.map((h) => [h.run_id, h]));
+  const recOf = new Map(headlines.map((h) => [h.id, h]));
+  return ids.map((id) => {
+    const h = headOf.get(id)!;
+    return { run: byId.get(id)!, rowCount: h.row_count, totalCounts: h.total_counts, headline: h.headline_id ? recOf.get(h.headline_id)! : null };
+  });
+}
+
+/** A run of this lab, or 404. */
+export async function findRun(labId: string, runId: string, em: EntityManager = db().manager): Promise<Run> {
+  const run = await em.findOne(Run, { where: { id: runId, labId }, relations: { session: { source: true }, createdBy: true } });
+  if (!run) throw notFound("Run");
+  return run;
+}
+
+export async function loadRunDetail(labId: string, runId: string, em: EntityManager = db().manager): Promise<RunDetail> {
+  await findRun(labId, runId, em);
+  const [summary] = await loadRunSummaries([runId], em);
+  const revisions = await em.find(RunRevision, { where: { runId }, relations: { createdBy: true }, order: { number: "ASC" } });
+  const reconstructions = await em.find(Reconstruction, { where: { runId }, relations: { createdBy: true }, order: { createdAt: "DESC", id: "DESC" } });
+  const attachments = await em.find(Attachment, { where: { runId }, relations: { createdBy: true }, order: { createdAt: "ASC" } });
+  return { ...summary, revisions, reconstructions, attachments };
+}

@@ -1,0 +1,92 @@
+import { createHash } from "node:crypto";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { writeTomographyCsv } from "@shared/formats/tomographyCsv";
+import { LIMITS } from "@shared/limits";
+import { RunDetailSchema } from "@shared/schemas/runs";
+import { Attachment, AuditEntry, Reconstruction, Run, RunRevision } from "../../server/entities/index";
+import { labWithRoles, type LabFixture } from "../support/clients";
+import { psiMinusRows, sessionIn } from "../support/notebook";
+import { startTestApp, type TestApp } from "../support/testApp";
+
+describe("counts file upload", () => {
+  let t: TestApp;
+  let f: LabFixture;
+  let url: string;
+  beforeAll(async () => {
+    t = await startTestApp();
+    f = await labWithRoles(t);
+    const { sessionId } = await sessionIn(f);
+    url = `/api/labs/${f.lab.id}/sessions/${sessionId}/runs/upload`;
+  });
+  afterAll(() => t.close());
+
+  const csv = (seed = 21) => writeTomographyCsv(psiMinusRows({ seed }), ["sweep point 5 mW"]);
+  const stored = async () => ({
+    runs: await t.dataSource.getRepository(Run).count(),
+    revisions: await t.dataSource.getRepository(RunRevision).count(),
+    reconstructions: await t.dataSource.getRepository(Reconstruction).count(),
+    attachments: await t.dataSource.getRepository(Attachment).count(),
+    audit: await t.dataSource.getRepository(AuditEntry).countBy({ action: "run.upload" }),
+  });
+
+  it("stores the run, its reconstructions and the file byte for byte", async () => {
+    const text = csv();
+    const bytes = Buffer.from(text, "utf8");
+    const res = await f.clients.member.post(url).field("pumpPowerMw", "5").attach("file", bytes, { filename: "power-5mW.csv", contentType: "text/csv" }).expect(201);
+    const run = RunDetailSchema.parse(res.body);
+    expect(run).toMatchObject({ name: "power-5mW", settingSetId: "tomo16", notes: "sweep point 5 mW", rowCount: 16, conditions: { pumpPowerMw: 5 } });
+    expect(run.rows).toEqual(psiMinusRows({ seed: 21 }).map((r) => ({ ...r, monitor: null })));
+    expect(run.reconstructions.map((r) => r.method).sort()).toEqual(["linear", "mle"]);
+    expect(run.attachments).toHaveLength(1);
+    const a = run.attachments[0];
+    expect(a).toMatchObject({ fileName: "power-5mW.csv", contentType: "text/csv", sizeBytes: bytes.length, sha256: createHash("sha256").update(bytes).digest("hex") });
+    const download = await f.clients.viewer.get(a.downloadPath).buffer(true).parse((r, cb) => {
+      const chunks: Buffer[] = [];
+      r.on("data", (c: Buffer) => chunks.push(c));
+      r.on("end", () => cb(null, Buffer.concat(chunks)));
+    }).expect(200);
+    expect(Buffer.compare(download.body as Buffer, bytes)).toBe(0);
+    expect(download.headers["content-disposition"]).toContain('filename="power-5mW.csv"');
+    await f.clients.outsider.get(a.downloadPath).expect(404);
+  });
+
+  it("rejects a malformed file naming its line and column, and stores nothing", async () => {
+    const before = await stored();
+    const lines = csv().split("\n");
+    lines[5] = lines[5].replace(/^(\w+),\d+/, "$1,12x");
+    const res = await f.clients.member.post(url).attach("file", Buffer.from(lines.join("\n")), { filename: "bad.csv", contentType: "text/csv" }).expect(400);
+    expect(res.body.error.details).toEqual([{ field: "file", line: 6, column: "counts", message: 'row 6, column "counts": "12x" is not a whole number ≥ 0' }]);
+    expect(res.body.error.message).toMatch(/^The file was not saved/);
+    expect(await stored()).toEqual(before);
+  });
+
+  it("names the file line when a row breaks a set rule (a setting missing from tomo16)", async () => {
+    const before = await stored();
+    const lines = csv().split("\n").filter((l) => !l.startsWith("RL,"));
+    const res = await f.clients.member.post(url).field("settingSetId", "tomo16").attach("file", Buffer.from(lines.join("\n")), { filename: "short.csv" }).expect(400);
+    expect(res.body.error.details).toEqual([{ field: "file", message: "The tomo16 set needs 16 rows; missing: RL." }]);
+    expect(await stored()).toEqual(before);
+  });
+
+  it("rolls everything back when the reconstruction fails after parsing (incomplete custom set)", async () => {
+    const before = await stored();
+    const six = csv().split("\n").slice(0, 8).join("\n");
+    const res = await f.clients.member.post(url).attach("file", Buffer.from(six), { filename: "six.csv" }).expect(400);
+    expect(res.body.error.message).toMatch(/not informationally complete/);
+    expect(await stored()).toEqual(before);
+  });
+
+  it("refuses a missing file, non-UTF-8 bytes and files over the size limit", async () => {
+    const none = await f.clients.member.post(url).field("name", "nothing").expect(400);
+    expect(none.body.error.details[0].field).toBe("file");
+    const latin1 = await f.clients.member.post(url).attach("file", Buffer.from([0x62, 0x61, 0x73, 0x69, 0x73, 0xe9, 0xff]), { filename: "x.csv" }).expect(400);
+    expect(latin1.body.error.message).toMatch(/not UTF-8/);
+    const big = await f.clients.member.post(url).attach("file", Buffer.alloc(LIMITS.uploadBytes + 1, 0x41), { filename: "big.csv" }).expect(413);
+    expect(big.body.error.code).toBe("payload_too_large");
+  });
+
+  it("viewers cannot upload; outsiders get 404", async () => {
+    await f.clients.viewer.post(url).attach("file", Buffer.from(csv()), { filename: "v.csv" }).expect(403);
+    await f.clients.outsider.post(url).attach("file", Buffer.from(csv()), { filename: "o.csv" }).expect(404);
+  });
+});
