@@ -5,7 +5,6 @@ import { AccountPage } from "./pages/AccountPage";
 import { DevOutboxPage } from "./pages/DevOutboxPage";
 import { ForgotPasswordPage } from "./pages/ForgotPasswordPage";
 import { InvitationPage } from "./pages/InvitationPage";
-import { LabPage } from "./pages/LabPage";
 import { MembersPage } from "./pages/MembersPage";
 import { NewLabPage } from "./pages/NewLabPage";
 import { ResetPasswordPage } from "./pages/ResetPasswordPage";
@@ -18,6 +17,13 @@ import { StatusPage } from "./pages/StatusPage";
 import { BellTestPage } from "./pages/BellTestPage";
 import { FringeScanPage } from "./pages/FringeScanPage";
 import { TrendsPage } from "./pages/TrendsPage";
+import { ComparePage } from "./pages/ComparePage";
+import { LabHomePage } from "./pages/LabHomePage";
+import { NewRunPage } from "./pages/NewRunPage";
+import { NewSessionPage } from "./pages/NewSessionPage";
+import { RunPage } from "./pages/RunPage";
+import { SessionPage } from "./pages/SessionPage";
+import { SourcesPage } from "./pages/SourcesPage";
 
 export const router = createBrowserRouter([
   {
@@ -35,8 +41,14 @@ export const router = createBrowserRouter([
       { path: "dev/outbox", element: <DevOutboxPage /> },
       { path: "labs/new", element: <NewLabPage /> },
       { path: "labs/:labId/members", element: <MembersPage /> },
-      // Until the notebook's lab home page takes this route.
-      { path: "labs/:labId", element: <LabPage /> },
+      // The notebook: sources, sessions, runs, state view, compare
+      { path: "labs/:labId", element: <LabHomePage /> },
+      { path: "labs/:labId/sources", element: <SourcesPage /> },
+      { path: "labs/:labId/sessions/new", element: <NewSessionPage /> },
+      { path: "labs/:labId/sessions/:sessionId", element: <SessionPage /> },
+      { path: "labs/:labId/sessions/:sessionId/runs/new", element: <NewRunPage /> },
+      { path: "labs/:labId/runs/:runId", element: <RunPage /> },
+      { path: "labs/:labId/compare", element: <ComparePage /> },
       // Bell tests, fringe scans and trends
       { path: "labs/:labId/runs/:runId/bell-test", element: <BellTestPage /> },
       { path: "labs/:labId/runs/:runId/fringe-fit", element: <FringeScanPage /> },

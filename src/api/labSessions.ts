@@ -24,6 +24,7 @@ export function useLabSession(labId: string, sessionId: string) {
   return useQuery({
     queryKey: queryKeys.labSession(labId, sessionId),
     queryFn: ({ signal }) => apiFetch<LabSessionDto>(`/labs/${labId}/sessions/${sessionId}`, { signal }),
+    enabled: !!sessionId,
   });
 }
 

@@ -1,4 +1,4 @@
-import { Link, NavLink } from "react-router-dom";
+import { Link, NavLink, useMatch } from "react-router-dom";
 import { RhombMark } from "./RhombMark";
 
 export interface NavItem {
@@ -12,6 +12,20 @@ const NAV: NavItem[] = [
   { to: "/status", label: "Status" },
 ];
 
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+/** Inside a lab (/labs/:labId/…), the lab's notebook pages come first. */
+function useNav(): NavItem[] {
+  const labId = useMatch("/labs/:labId/*")?.params.labId;
+  if (!labId || !UUID.test(labId)) return NAV;
+  return [
+    { to: `/labs/${labId}`, label: "Lab home", end: true },
+    { to: `/labs/${labId}/sources`, label: "Sources" },
+    { to: `/labs/${labId}/compare`, label: "Compare" },
+    ...NAV.filter((n) => n.to !== "/"),
+  ];
+}
+
 const linkClass = ({ isActive }: { isActive: boolean }) =>
   [
     "rounded-md px-3 py-1.5 text-sm font-bold transition-colors",
@@ -19,7 +33,9 @@ const linkClass = ({ isActive }: { isActive: boolean }) =>
   ].join(" ");
 
 /** The top bar: mark, wordmark, primary navigation, and a slot for the account menu. */
-export function AppHeader({ nav = NAV, right }: { nav?: NavItem[]; right?: React.ReactNode }) {
+export function AppHeader({ nav: navProp, right }: { nav?: NavItem[]; right?: React.ReactNode }) {
+  const labNav = useNav();
+  const nav = navProp ?? labNav;
   return (
     <header className="border-b-2 border-petrol-700 bg-paper-raised">
       <div className="mx-auto flex max-w-7xl items-center gap-6 px-4 py-2.5">

@@ -1,6 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { standardSet } from "@shared/physics/settings";
-import { simulateCounts } from "@shared/physics/simulateCounts";
+import { simulateCounts, standardSet } from "@shared/physics";
 import { isBlock, parseBlock, parseCell, planPaste } from "../../src/features/countsEntry/clipboard";
 import { checkEntry, type EntryRow } from "../../src/features/countsEntry/entryChecks";
 import { gridRows, setLabels, type Conventions } from "../../src/features/countsEntry/gridRows";

@@ -1,6 +1,8 @@
 import { formatNumber } from "@shared/format/uncertainty";
 import { DensityBars2D } from "../../plots/DensityBars2D";
 import { sharedScale } from "../../plots/densityModel";
+import type { BellTarget } from "@shared/schemas/sources";
+import { BELL_SYMBOL } from "../stateView/meritRows";
 import { Spectrum } from "../stateView/Spectrum";
 import { LOW_MEAN_COUNT, type EntryChecks } from "./entryChecks";
 
@@ -8,8 +10,8 @@ import { LOW_MEAN_COUNT, type EntryChecks } from "./entryChecks";
  * The side panel of the counts grid: progress through the set, warnings as counts arrive,
  * and the linear estimate once every row is in. Nothing here is stored.
  */
-export function EntryFeedback({ checks, labels }: { checks: EntryChecks; labels: string[] }) {
-  const { filled, total, linear } = checks;
+export function EntryFeedback({ checks, labels, target }: { checks: EntryChecks; labels: string[]; target: BellTarget }) {
+  const { filled, total, linear, figures } = checks;
   const warnings = warningsOf(checks, labels);
   return (
     <div className="space-y-3" aria-live="polite" aria-atomic="false">
@@ -37,6 +39,16 @@ export function EntryFeedback({ checks, labels }: { checks: EntryChecks; labels:
       {linear && (
         <div data-testid="live-estimate">
           <p className="mb-1 text-sm font-bold">Linear estimate (not saved)</p>
+          {figures && (
+            <dl className="mb-2 grid grid-cols-[1fr_auto] gap-x-3 text-sm" data-testid="live-figures">
+              <dt>Fidelity to {BELL_SYMBOL[target]}</dt>
+              <dd className="num">{formatNumber(figures.fidelity, 3)}</dd>
+              <dt>Concurrence</dt>
+              <dd className="num">{formatNumber(figures.concurrence, 3)}</dd>
+              <dt>Purity</dt>
+              <dd className="num">{formatNumber(figures.purity, 3)}</dd>
+            </dl>
+          )}
           <DensityBars2D rho={linear.rho} scale={sharedScale(linear.rho)} stacked />
           <div className="mt-2">
             <Spectrum eigenvalues={linear.eigenvalues} physical={linear.physical} />

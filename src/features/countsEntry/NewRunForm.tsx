@@ -2,6 +2,7 @@ import { useDeferredValue, useId, useMemo, useState } from "react";
 import { useFieldArray, useForm, useWatch } from "react-hook-form";
 import { useNavigate } from "react-router-dom";
 import type { LabSessionDto } from "@shared/schemas/labSessions";
+import type { BellTarget } from "@shared/schemas/sources";
 import { ApiError } from "../../api/client";
 import { useCreateRun } from "../../api/runs";
 import { Alert } from "../../components/Alert";
@@ -16,10 +17,11 @@ import { engineConventions, ENTRY_SETS, gridRows, type EntrySetId } from "./grid
 import { RunDetailsFields } from "./RunDetailsFields";
 import { defaultRunForm, runFormResolver, switchRows, type CellColumn, type RunFormValues } from "./runForm";
 import { SettingSheetPrint } from "./SettingSheetPrint";
+import { labPaths } from "../notebook/labPaths";
 import { useGridEditing, type Snapshot } from "./useGridEditing";
 
 /** Counts entry for a new run: choose a set, read the angles, type or paste counts, save. */
-export function NewRunForm({ labId, session }: { labId: string; session: LabSessionDto }) {
+export function NewRunForm({ labId, session, target }: { labId: string; session: LabSessionDto; target: BellTarget }) {
   const gridId = useId().replace(/:/g, "");
   const navigate = useNavigate();
   const createRun = useCreateRun(labId, session.id);
@@ -35,8 +37,8 @@ export function NewRunForm({ labId, session }: { labId: string; session: LabSess
   const rows = useMemo(() => gridRows(labels, setId, session), [labels.join(","), setId, session]);
   const deferred = useDeferredValue(watchedRows);
   const checks = useMemo(
-    () => checkEntry(deferred.map((r) => ({ label: (r.setting ?? "").toUpperCase(), counts: r.counts, seconds: r.seconds })), engineConventions(setId, session)),
-    [deferred, setId, session],
+    () => checkEntry(deferred.map((r) => ({ label: (r.setting ?? "").toUpperCase(), counts: r.counts, seconds: r.seconds })), engineConventions(setId, session), target),
+    [deferred, setId, session, target],
   );
 
   const restore = (s: Snapshot) => {
@@ -61,7 +63,7 @@ export function NewRunForm({ labId, session }: { labId: string; session: LabSess
     async (body) => {
       try {
         const run = await createRun.mutateAsync(body as never);
-        navigate(`/labs/${labId}/runs/${run.id}`);
+        navigate(labPaths.run(labId, run.id));
       } catch (err) {
         if (err instanceof ApiError) for (const [field, message] of Object.entries(err.fieldMessages())) form.setError(field as never, { message });
       }
@@ -102,7 +104,7 @@ export function NewRunForm({ labId, session }: { labId: string; session: LabSess
             {editing.announcement && <p className="mt-1 text-sm text-petrol-800">{editing.announcement}</p>}
           </div>
           <aside aria-label="Live check" className="rounded-md bg-paper p-3">
-            <EntryFeedback checks={checks} labels={labels} />
+            <EntryFeedback checks={checks} labels={labels} target={target} />
           </aside>
         </div>
       </Panel>

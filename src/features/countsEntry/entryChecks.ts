@@ -10,8 +10,7 @@
  * count. A linear estimate alone cannot do this for the 16-setting set: it fits 16 rows with
  * 16 parameters exactly.
  */
-import { reconstruct, type Reconstruction } from "@shared/physics/reconstruct";
-import type { CountsRow, SetupConventions } from "@shared/physics/types";
+import { figuresOfMerit, reconstruct, type CountsRow, type FiguresOfMerit, type Reconstruction, type SetupConventions, type Target } from "@shared/physics";
 
 export const OUTLIER_SIGMA = 6;
 export const OUTLIER_SHARE = 0.05;
@@ -40,8 +39,9 @@ export interface EntryChecks {
   zeros: number[];
   outliers: Outlier[];
   lowCounts: boolean;
-  /** The linear estimate once every row has a readable count. */
+  /** The linear estimate once every row has a readable count, and its figures of merit. */
   linear: Reconstruction | null;
+  figures: FiguresOfMerit | null;
   /** Why there is no estimate yet, or why the engine refused one. */
   estimateNote: string | null;
 }
@@ -49,7 +49,7 @@ export interface EntryChecks {
 const isCount = (x: unknown): x is number => typeof x === "number" && Number.isInteger(x) && x >= 0;
 const positiveOr1 = (x: unknown) => (typeof x === "number" && x > 0 ? x : 1);
 
-export function checkEntry(rows: EntryRow[], conventions: SetupConventions): EntryChecks {
+export function checkEntry(rows: EntryRow[], conventions: SetupConventions, target: Target = "psi-"): EntryChecks {
   const unreadable: number[] = [];
   const zeros: number[] = [];
   let filled = 0;
@@ -59,7 +59,7 @@ export function checkEntry(rows: EntryRow[], conventions: SetupConventions): Ent
     if (!isCount(r.counts)) unreadable.push(i);
     else if (r.counts === 0) zeros.push(i);
   });
-  const base = { total: rows.length, filled, unreadable, zeros, outliers: [] as Outlier[], lowCounts: false, linear: null, estimateNote: null };
+  const base = { total: rows.length, filled, unreadable, zeros, outliers: [] as Outlier[], lowCounts: false, linear: null, figures: null, estimateNote: null };
   if (filled < rows.length || unreadable.length) {
     const missing = rows.length - filled;
     const note = unreadable.length
@@ -79,7 +79,7 @@ export function checkEntry(rows: EntryRow[], conventions: SetupConventions): Ent
       const miss = Math.abs(r.counts - expected);
       return miss > OUTLIER_SIGMA * Math.sqrt(Math.max(expected, 1)) && miss > OUTLIER_SHARE * largest ? [{ row: i, counts: r.counts, expected }] : [];
     });
-    return { ...base, lowCounts, linear, outliers };
+    return { ...base, lowCounts, linear, figures: figuresOfMerit(linear.rho, target), outliers };
   } catch (e) {
     return { ...base, lowCounts, estimateNote: (e as Error).message };
   }

@@ -2,8 +2,9 @@
  * The rows of the counts-entry grid: one per counted outcome, with the waveplate angles to turn
  * in each arm computed by the engine from the session's calibrations and handedness.
  */
-import { angleTable, standardSet, transmittedLetter, type StandardSetId } from "@shared/physics/settings";
-import type { Letter, SetupConventions } from "@shared/physics/types";
+import { standardSet, type Letter, type SetupConventions, type StandardSetId } from "@shared/physics";
+// Not (yet) re-exported by the engine's index: the per-arm angle table and the port rule the model uses.
+import { angleTable, transmittedLetter } from "@shared/physics/settings";
 import type { LabSessionDto } from "@shared/schemas/labSessions";
 
 export type EntrySetId = "tomo16" | "tomo36" | "pairs9" | "custom";
