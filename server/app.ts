@@ -10,6 +10,7 @@ import { apiNotFound, errorMiddleware } from "./http/errorMiddleware";
 import { sessionMiddleware } from "./http/session";
 import { csrfProtection } from "./http/csrf";
 import { loadUser } from "./http/auth";
+import { tokenAuth } from "./http/tokenAuth";
 import { healthRouter } from "./routes/health";
 import { apiRouters } from "./routes/index";
 
@@ -56,6 +57,7 @@ export function createApp({ config, dataSource }: AppDeps): Express {
   api.use(sessionMiddleware(config, dataSource));
   api.use(csrfProtection);
   api.use(loadUser);
+  api.use(tokenAuth);
   for (const r of apiRouters) api.use(r.prefix, r.router);
   api.use(apiNotFound);
   app.use("/api", api);

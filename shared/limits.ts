@@ -18,4 +18,15 @@ export const LIMITS = {
   /** Monte Carlo samples per reconstruction (physics contract §5: default 200, up to 10,000). */
   monteCarloDefault: 200,
   monteCarloMax: 10_000,
+  /** Batch uploads: files per batch (a zip counts its members), runs per sweep file. */
+  batchFiles: 2_000,
+  sweepRuns: 2_000,
+  /** One batch request in total, bytes (every file and zip together, as sent). */
+  batchUploadBytes: 50_000_000,
+  /** A zip may unpack to at most this many times its own size, and this many bytes in all. */
+  zipExpansionRatio: 100,
+  zipUnpackedBytes: 200_000_000,
+  /** Personal API tokens: longest expiry, requests per token per minute. */
+  apiTokenDaysMax: 730,
+  apiTokenRequestsPerMinute: 600,
 } as const;

@@ -1,5 +1,8 @@
+import { ApiToken } from "./ApiToken";
 import { Attachment } from "./Attachment";
 import { AuditEntry } from "./AuditEntry";
+import { Batch } from "./Batch";
+import { BatchFile } from "./BatchFile";
 import { EmailToken } from "./EmailToken";
 import { Invitation } from "./Invitation";
 import { Lab } from "./Lab";
@@ -12,7 +15,8 @@ import { Source } from "./Source";
 import { User } from "./User";
 
 /** Every entity, listed explicitly (no globs: tsx and vitest load files differently). */
-export const entities = [User, Lab, LabMembership, Source, LabSession, Run, RunRevision, Reconstruction, Attachment, AuditEntry, EmailToken, Invitation];
+export const entities = [User, Lab, LabMembership, Source, LabSession, Run, RunRevision, Reconstruction, Attachment, AuditEntry, EmailToken, Invitation, ApiToken, Batch, BatchFile];
 
 export { EmailToken, Invitation, Lab, LabMembership, User };
 export { Attachment, AuditEntry, LabSession, Reconstruction, Run, RunRevision, Source };
+export { ApiToken, Batch, BatchFile };

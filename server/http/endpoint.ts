@@ -1,6 +1,6 @@
 import { Router, type Request, type RequestHandler, type Response } from "express";
 import type { ZodType, z } from "zod";
-import { unauthenticated } from "./errors";
+import { forbidden, unauthenticated } from "./errors";
 import type { AuthUser } from "./auth";
 
 /**
@@ -72,6 +72,7 @@ export class ApiRouter {
       const run: RequestHandler = async (req, res, next) => {
         try {
           if (spec.auth === "user" && !req.user) throw unauthenticated();
+          if (req.user?.token && !spec.tokenAccess) throw forbidden("API tokens cannot use this endpoint; sign in in the browser instead.");
           const params = spec.params ? spec.params.parse(req.params) : undefined;
           const query = spec.query ? spec.query.parse(req.query) : undefined;
           const body = spec.body ? spec.body.parse(req.body ?? {}) : undefined;

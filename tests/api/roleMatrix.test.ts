@@ -23,6 +23,7 @@
 import { randomUUID } from "node:crypto";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { endpointRegistry } from "../../server/http/endpoint";
+import { ApiToken } from "../../server/entities/ApiToken";
 import { EmailToken } from "../../server/entities/EmailToken";
 import { Invitation } from "../../server/entities/Invitation";
 import { LabMembership } from "../../server/entities/LabMembership";
@@ -156,6 +157,20 @@ const ROWS: Record<string, Row> = {
   },
   "GET /api/labs/:labId/reconstructions/:reconstructionId": { expect: LAB_READ(), request: async (c) => ({ path: `/api/labs/${c.lab}/reconstructions/${(await c.run()).reconstructionId}` }) },
   "GET /api/labs/:labId/compare": { expect: LAB_READ(), request: async (c) => ({ path: `/api/labs/${c.lab}/compare?runs=${(await c.run()).id},${(await c.secondRun()).id}` }) },
+
+  // Personal API tokens: anyone signed in manages their own; creating one needs write access to its lab
+  "GET /api/tokens": { expect: SIGNED_IN(), request: () => ({ path: "/api/tokens" }) },
+  "GET /api/tokens/current": { expect: SIGNED_IN(), request: () => ({ path: "/api/tokens/current" }) },
+  "POST /api/tokens": { expect: LAB_WRITE(201), request: (c) => ({ path: "/api/tokens", body: { name: "Matrix token", labId: c.lab } }) },
+  // Everyone revokes only their own token: the outsider (and anonymous) aim at the owner's.
+  "DELETE /api/tokens/:tokenId": {
+    expect: { anonymous: 401, outsider: 404, viewer: 200, member: 200, owner: 200 },
+    request: async (c, caller) => {
+      const userId = (caller === "viewer" || caller === "member" ? c.f.users[caller] : c.f.users.owner).id;
+      const token = await c.t.dataSource.getRepository(ApiToken).save({ userId, labId: c.lab, name: "Matrix token", secretSha256: randomUUID().replace(/-/g, "").padEnd(64, "0"), hint: "rhb_matrix" });
+      return { path: `/api/tokens/${token.id}` };
+    },
+  },
 };
 
 function once<T>(make: () => Promise<T>): () => Promise<T> {
