@@ -3,10 +3,10 @@ import { ApiRouter } from "../http/endpoint";
 import { runPolicy } from "../policies/runs";
 import { bellTest } from "../services/bellAnalysis";
 
-export const bellRouter = new ApiRouter("/labs/:labId/runs/:runId/bell-test");
+export const bellRouter = new ApiRouter("/labs");
 
 bellRouter.get(
-  "/",
+  "/:labId/runs/:runId/bell-test",
   {
     summary: "CHSH of a Bell-test run: each E ± σ, S ± σ_S, significance, and what the session's reconstructed ρ predicts",
     auth: "user",

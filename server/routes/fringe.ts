@@ -3,10 +3,10 @@ import { ApiRouter } from "../http/endpoint";
 import { runPolicy } from "../policies/runs";
 import { fringeScan } from "../services/fringeAnalysis";
 
-export const fringeRouter = new ApiRouter("/labs/:labId/runs/:runId/fringe-fit");
+export const fringeRouter = new ApiRouter("/labs");
 
 fringeRouter.get(
-  "/",
+  "/:labId/runs/:runId/fringe-fit",
   {
     summary: "Visibility fits of a fringe-scan run, one per setting of the fixed arm, with visibilities per basis",
     auth: "user",

@@ -3,10 +3,10 @@ import { ApiRouter } from "../http/endpoint";
 import { runPolicy } from "../policies/runs";
 import { trendOf } from "../services/trends";
 
-export const trendsRouter = new ApiRouter("/labs/:labId/trends");
+export const trendsRouter = new ApiRouter("/labs");
 
 trendsRouter.get(
-  "/",
+  "/:labId/trends",
   {
     summary: "Figures and parameters of every run of a session or source, for trend plots",
     auth: "user",
