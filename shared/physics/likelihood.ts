@@ -3,7 +3,8 @@
  * L(σ) = Σ_k [n_k ln μ_k − μ_k] (without ln n_k!), the negative of the NLL that the MLE minimises.
  */
 import type { MeasurementModel } from "./measurementModel";
-import { type CMatrix, multiply, zeros } from "./linalg/complexMatrix";
+import { type CMatrix, multiply, scale, zeros } from "./linalg/complexMatrix";
+import type { PreparedCounts } from "./corrections";
 import { hermitianEigen, hermitianEigenvalues, fromSpectrum } from "./linalg/hermitianEigen";
 
 export function expectedCounts(model: MeasurementModel, weights: Float64Array, sigma: CMatrix): Float64Array {
@@ -75,4 +76,24 @@ export function inverseSqrtTotalOperator(model: MeasurementModel, weights: Float
 export function gapBound(g: CMatrix, mInvSqrt: CMatrix, totalExpected: number, totalCounts: number): number {
   const values = hermitianEigenvalues(multiply(multiply(mInvSqrt, g), mInvSqrt));
   return Math.max(0, totalExpected - totalCounts - totalCounts * values[values.length - 1]);
+}
+
+/** The bound (Σμ − N) − N λ_min(M^{-1/2} G M^{-1/2}) (see maximumLikelihood.ts). */
+export function optimalityGap(model: MeasurementModel, data: PreparedCounts, sigma: CMatrix, mInvSqrt: CMatrix): number {
+  const mu = expectedCounts(model, data.weights, sigma);
+  const c = new Float64Array(model.rows);
+  let total = 0;
+  for (let k = 0; k < model.rows; k++) {
+    total += mu[k];
+    const nk = data.counts[k];
+    if (nk > 0 && !(mu[k] > 0)) return Infinity;
+    c[k] = nk > 0 ? 1 - nk / mu[k] : 1;
+  }
+  return gapBound(weightedProjectorSum(model, c), mInvSqrt, total, data.totalCounts);
+}
+
+/** s·σ with s = N / Σμ, the best multiple of σ. */
+export function rescaled(model: MeasurementModel, data: PreparedCounts, sigma: CMatrix): CMatrix {
+  const total = expectedCounts(model, data.weights, sigma).reduce((a, b) => a + b, 0);
+  return total > 0 ? scale(sigma, data.totalCounts / total) : sigma;
 }

@@ -1,38 +1,44 @@
 /**
  * Maximum likelihood on the Poisson likelihood over positive semidefinite σ (physics contract
- * §4), in the Cholesky parametrisation σ = T T† of James, Kwiat, Munro, White, Phys. Rev. A 64,
- * 052312 (2001), §IV (T lower triangular with real diagonal: d² real parameters θ).
+ * §4): minimise NLL(σ) = Σ_k [μ_k − n_k ln μ_k], μ_k = w_k ⟨ψ_k|σ|ψ_k⟩.
  *
- * Optimiser: Newton's method with the exact Hessian and Levenberg–Marquardt damping
- * (Nocedal & Wright, "Numerical Optimization", 2nd ed., §4 and §10.3). With μ_k = w_k ‖T†ψ_k‖²:
- *   ∂NLL/∂T* = G T,  G = Σ_k c_k w_k |ψ_k⟩⟨ψ_k|,  c_k = 1 − n_k/μ_k,
- *   ∇²NLL = Σ_k (n_k/μ_k²) ∇μ_k ∇μ_kᵀ + ∇²_θ Tr(T† G T)  (c_k held fixed in the second term).
- * Steps are accepted on the exact change of NLL, computed from the change of each μ_k (a
- * quadratic in the step), so progress is not blocked by rounding of NLL itself (~1e-16·|NLL|).
+ * 1. Newton on the convex NLL over all Hermitian σ (unconstrainedPoisson.ts), from the
+ *    projected least-squares estimate. If that optimum is positive, it is the answer.
+ * 2. Otherwise, and to confirm it, Newton in the Cholesky parametrisation σ = U T T† U† of
+ *    James, Kwiat, Munro, White, Phys. Rev. A 64, 052312 (2001), §IV (T lower triangular with
+ *    real diagonal), in the eigenbasis U of step 1's result, where the start is T = √Λ. Columns
+ *    of T for eigenvalues that step 1 found negative start and stay at zero (the likely face of
+ *    the cone). If the certificate below then fails, all columns are freed and the search
+ *    goes on. Newton details: poissonNewton.ts, linalg/dampedNewton.ts.
  *
  * Stopping rule — a certificate. NLL is convex in σ and its optimum lies on
  * S = {σ ⪰ 0 : Tr(Mσ) = N}, M = Σ_k w_k P_k, N = Σ_k n_k (scaling σ by s changes NLL by
  * s·Σμ − N ln s, minimal at Σμ = N). Minimising the linearisation over S gives, for every σ,
- *   NLL(σ) − NLL* ≤ (Σμ − N) − N · λ_min(M^{-1/2} G M^{-1/2})
+ *   NLL(σ) − NLL* ≤ (Σμ − N) − N · λ_min(M^{-1/2} G M^{-1/2}),  G = Σ_k (1 − n_k/μ_k) w_k P_k
  * (the first-order convexity bound, e.g. Boyd & Vandenberghe, "Convex Optimization", §3.1.3).
  * This `optimalityGap` (nats of log-likelihood) must fall to tolerance · max(N, 1).
  */
-import type { MeasurementModel } from "./measurementModel";
+import { inBasis, type MeasurementModel } from "./measurementModel";
 import type { PreparedCounts } from "./corrections";
-import { type CMatrix, identity, add, scale } from "./linalg/complexMatrix";
-import { expectedCounts, gapBound, inverseSqrtTotalOperator, logLikelihood, weightedProjectorSum } from "./likelihood";
-import { choleskyParameters, sigmaFromParameters } from "./choleskyParametrisation";
-import { PoissonNewton } from "./poissonNewton";
+import type { LinearSystem } from "./linearInversion";
+import { type CMatrix, add, hermitianPart, identity, multiply, adjoint, scale } from "./linalg/complexMatrix";
+import { hermitianEigen } from "./linalg/hermitianEigen";
 import { DampedNewton } from "./linalg/dampedNewton";
+import { expectedCounts, inverseSqrtTotalOperator, logLikelihood, optimalityGap, rescaled } from "./likelihood";
+import { sigmaFromParameters } from "./choleskyParametrisation";
+import { PoissonNewton } from "./poissonNewton";
+import { UnconstrainedPoisson } from "./unconstrainedPoisson";
+import { fromPauliCoefficients, pauliCoefficients } from "./pauliBasis";
 
 /** Default relative tolerance on the optimality gap (nats per count). */
 export const MLE_TOLERANCE = 1e-10;
 const MAX_ITERATIONS = 200;
-const INITIAL_DAMPING = 1e-6;
+/** Fraction of the maximally mixed state mixed into the start so that it is positive definite. */
+const START_MIXING = 0.01;
+/** Eigenvalues of the step-1 optimum below this fraction of the largest start on the face's boundary. */
+const FACE_THRESHOLD = 1e-9;
 /** Check the gap once a step lowered NLL by less than this multiple of the threshold. */
 const GAP_CHECK_FACTOR = 10;
-/** Fraction of the maximally mixed state mixed into the start so that T has full rank. */
-const START_MIXING = 0.01;
 
 export interface MleOptions {
   tolerance?: number;
@@ -42,6 +48,7 @@ export interface MleOptions {
 export interface MleResult {
   sigma: CMatrix;
   logLikelihood: number;
+  /** Newton steps of both stages. */
   iterations: number;
   converged: boolean;
   /** Upper bound on L* − L at the returned σ, in nats. */
@@ -50,63 +57,106 @@ export interface MleResult {
   tolerance: number;
 }
 
-export function maximumLikelihood(model: MeasurementModel, data: PreparedCounts, start: CMatrix, options: MleOptions = {}): MleResult {
+export function maximumLikelihood(
+  model: MeasurementModel,
+  linear: LinearSystem,
+  data: PreparedCounts,
+  start: CMatrix,
+  options: MleOptions = {},
+): MleResult {
   const tolerance = options.tolerance ?? MLE_TOLERANCE;
   const threshold = tolerance * Math.max(data.totalCounts, 1);
+  const budget = { left: options.maxIterations ?? MAX_ITERATIONS };
   const mInvSqrt = inverseSqrtTotalOperator(model, data.weights);
-  const problem = new PoissonNewton(model, data);
-  const theta = choleskyParameters(fullRankStart(model, data, start));
-  const maxIterations = options.maxIterations ?? MAX_ITERATIONS;
-
-  const newton = new DampedNewton(problem);
-  let iterations = 0;
-  let damping = INITIAL_DAMPING;
-  let lastDecrease = Infinity;
-  for (; iterations < maxIterations; iterations++) {
-    problem.evaluate(theta);
-    // The certificate costs an eigen-decomposition; ask for it only once steps have become small.
-    if (lastDecrease <= GAP_CHECK_FACTOR * threshold && problem.gap(mInvSqrt) <= threshold) break;
-    const step = newton.step(theta, damping);
-    if (!step) break;
-    damping = step.damping;
-    lastDecrease = step.decrease;
+  const mixed = fullRankStart(model, data, start);
+  let sigma = unconstrainedOptimum(linear, data, mixed, threshold, budget) ?? mixed;
+  let search = positiveSearch(model, data, mInvSqrt, sigma, threshold, budget, true);
+  if (search.gap > threshold && search.rank < model.dimension && budget.left > 0) {
+    const d = model.dimension;
+    const opened = add(scale(search.sigma, 1 - START_MIXING), identity(d), (START_MIXING * traceOf(search.sigma)) / d);
+    search = positiveSearch(model, data, mInvSqrt, opened, threshold, budget, false);
   }
-  const sigma = rescaled(model, data, sigmaFromParameters(theta, model.dimension));
+  sigma = rescaled(model, data, search.sigma);
   const gap = optimalityGap(model, data, sigma, mInvSqrt);
   return {
     sigma,
     logLikelihood: logLikelihood(data.counts, expectedCounts(model, data.weights, sigma)),
-    iterations,
+    iterations: (options.maxIterations ?? MAX_ITERATIONS) - budget.left,
     converged: gap <= threshold,
     optimalityGap: gap,
     tolerance,
   };
 }
 
-/** The bound (Σμ − N) − N λ_min(M^{-1/2} G M^{-1/2}) described above. */
-export function optimalityGap(model: MeasurementModel, data: PreparedCounts, sigma: CMatrix, mInvSqrt: CMatrix): number {
-  const mu = expectedCounts(model, data.weights, sigma);
-  const c = new Float64Array(model.rows);
-  let total = 0;
-  for (let k = 0; k < model.rows; k++) {
-    total += mu[k];
-    const nk = data.counts[k];
-    if (nk > 0 && !(mu[k] > 0)) return Infinity;
-    c[k] = nk > 0 ? 1 - nk / mu[k] : 1;
+/**
+ * Newton over T in the eigenbasis of `start`; with `onFace`, columns of eigenvalues below
+ * FACE_THRESHOLD·λ_max stay zero. Returns σ in the original basis and the gap reached.
+ */
+function positiveSearch(
+  model: MeasurementModel,
+  data: PreparedCounts,
+  mInvSqrt: CMatrix,
+  start: CMatrix,
+  threshold: number,
+  budget: { left: number },
+  onFace: boolean,
+) {
+  const d = model.dimension;
+  const { values, vectors: u } = hermitianEigen(hermitianPart(start));
+  const floor = FACE_THRESHOLD * values[0];
+  const rank = onFace ? Math.max(1, values.filter((v) => v > floor).length) : d;
+  const rotated = inBasis(model, u);
+  const rotatedInvSqrt = multiply(multiply(adjoint(u), mInvSqrt), u);
+  const problem = new PoissonNewton(rotated, data, rank);
+  const newton = new DampedNewton(problem);
+  const theta = new Float64Array(d * d);
+  for (let i = 0; i < d; i++) theta[i * i + 2 * i] = i < rank ? Math.sqrt(Math.max(values[i], floor)) : 0;
+  let gap = Infinity;
+  let lastDecrease = Infinity;
+  while (budget.left > 0) {
+    problem.evaluate(theta);
+    // The certificate costs an eigen-decomposition; ask for it only once steps have become small.
+    if (lastDecrease <= GAP_CHECK_FACTOR * threshold) {
+      gap = problem.gap(rotatedInvSqrt);
+      if (gap <= threshold) break;
+    }
+    const step = newton.step(theta);
+    if (!step) break;
+    budget.left--;
+    lastDecrease = step.decrease;
   }
-  return gapBound(weightedProjectorSum(model, c), mInvSqrt, total, data.totalCounts);
+  if (gap === Infinity) gap = problem.gap(rotatedInvSqrt);
+  const sigma = multiply(multiply(u, sigmaFromParameters(theta, d)), adjoint(u));
+  return { sigma, gap, rank };
 }
 
-/** s·σ with s = N / Σμ, the best multiple of σ. */
-export function rescaled(model: MeasurementModel, data: PreparedCounts, sigma: CMatrix): CMatrix {
-  const total = expectedCounts(model, data.weights, sigma).reduce((a, b) => a + b, 0);
-  return total > 0 ? scale(sigma, data.totalCounts / total) : sigma;
+/**
+ * Newton on the convex likelihood over all Hermitian σ (unconstrainedPoisson.ts) from a
+ * positive start; null when some row has no counts (the problem is then unbounded).
+ */
+function unconstrainedOptimum(linear: LinearSystem, data: PreparedCounts, start: CMatrix, threshold: number, budget: { left: number }): CMatrix | null {
+  for (let k = 0; k < data.counts.length; k++) if (!(data.counts[k] > 0)) return null;
+  const problem = new UnconstrainedPoisson(linear, data);
+  const newton = new DampedNewton(problem);
+  const x = pauliCoefficients(start, linear.photons);
+  while (budget.left > 0 && problem.evaluate(x)) {
+    const step = newton.step(x);
+    if (!step) break;
+    budget.left--;
+    if (step.decrease <= threshold) break;
+  }
+  return fromPauliCoefficients(x, linear.photons);
 }
 
 function fullRankStart(model: MeasurementModel, data: PreparedCounts, start: CMatrix): CMatrix {
   const d = model.dimension;
-  let t = 0;
-  for (let i = 0; i < d; i++) t += start.re[i * d + i];
+  const t = traceOf(start);
   const unit = t > 0 ? scale(start, 1 / t) : identity(d);
   return rescaled(model, data, add(scale(unit, 1 - START_MIXING), identity(d), START_MIXING / d));
+}
+
+function traceOf(m: CMatrix): number {
+  let t = 0;
+  for (let i = 0; i < m.n; i++) t += m.re[i * m.n + i];
+  return t;
 }

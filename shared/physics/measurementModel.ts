@@ -11,7 +11,7 @@ import { DEFAULT_HANDEDNESS, letterState, parseLabel } from "./states";
 import { analyserState } from "./waveplates";
 import { angleTable, MAX_PHOTONS, transmittedLetter } from "./settings";
 import type { AnalyserAngles } from "./analyserAngles";
-import type { CVector } from "./linalg/complexMatrix";
+import type { CMatrix, CVector } from "./linalg/complexMatrix";
 
 export interface MeasurementModel {
   photons: number;
@@ -122,4 +122,32 @@ function productStates(sr: Float64Array, si: Float64Array, k: number, photons: n
     }
   }
   return { psiRe, psiIm };
+}
+
+/**
+ * The same rows written in another orthonormal basis: |ψ_k⟩ → U†|ψ_k⟩ with U's columns the new
+ * basis vectors. Expectations are unchanged: ⟨ψ|U σ′ U†|ψ⟩ = ⟨U†ψ|σ′|U†ψ⟩. Only the product
+ * vectors are rotated (the single-photon states keep the original basis).
+ */
+export function inBasis(model: MeasurementModel, u: CMatrix): MeasurementModel {
+  const d = model.dimension;
+  const psiRe = new Float64Array(model.rows * d);
+  const psiIm = new Float64Array(model.rows * d);
+  for (let k = 0; k < model.rows; k++) {
+    const o = k * d;
+    for (let j = 0; j < d; j++) {
+      // (U†ψ)_j = Σ_i conj(U_ij) ψ_i
+      let re = 0;
+      let im = 0;
+      for (let i = 0; i < d; i++) {
+        const ur = u.re[i * d + j], ui = u.im[i * d + j];
+        const pr = model.psiRe[o + i], pi = model.psiIm[o + i];
+        re += ur * pr + ui * pi;
+        im += ur * pi - ui * pr;
+      }
+      psiRe[o + j] = re;
+      psiIm[o + j] = im;
+    }
+  }
+  return { ...model, psiRe, psiIm };
 }

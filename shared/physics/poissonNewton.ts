@@ -1,6 +1,6 @@
 /**
  * NLL(θ) = Σ_k [μ_k − n_k ln μ_k] in the Cholesky parameters θ of σ = T T† (see
- * choleskyParametrisation.ts), with its gradient, exact Hessian and exact step changes, for
+ * choleskyParametrisation.ts), with its gradient, exact Hessian and exact changes along a line, for
  * the damped Newton iteration in maximumLikelihood.ts. All buffers are allocated once.
  *
  * With v_k = T†ψ_k and μ_k = w_k ‖v_k‖²:
@@ -12,7 +12,7 @@
  */
 import type { MeasurementModel } from "./measurementModel";
 import type { PreparedCounts } from "./corrections";
-import type { NewtonProblem } from "./linalg/dampedNewton";
+import type { LinePoint, NewtonProblem } from "./linalg/dampedNewton";
 import { type CMatrix, zeros } from "./linalg/complexMatrix";
 import { unpackParameters } from "./choleskyParametrisation";
 import { gapBound } from "./likelihood";
@@ -21,6 +21,8 @@ export class PoissonNewton implements NewtonProblem {
   readonly size: number;
   readonly gradient: Float64Array;
   readonly hessian: Float64Array;
+  /** Parameters of the columns j < rank of T are free; the others stay 0. */
+  readonly free: Uint8Array;
   private readonly d: number;
   private readonly mu: Float64Array;
   private readonly coef: Float64Array;
@@ -32,12 +34,16 @@ export class PoissonNewton implements NewtonProblem {
   private readonly step: CMatrix;
   private readonly g: CMatrix;
   private readonly coupling: Couplings;
+  private readonly lineLinear: Float64Array;
+  private readonly lineQuadratic: Float64Array;
   private totalExpected = 0;
 
-  constructor(private readonly model: MeasurementModel, private readonly data: PreparedCounts) {
+  constructor(private readonly model: MeasurementModel, private readonly data: PreparedCounts, rank = model.dimension) {
     const d = model.dimension;
     this.d = d;
     this.size = d * d;
+    this.free = new Uint8Array(this.size);
+    for (let i = 0; i < d; i++) for (let j = 0; j <= i; j++) if (j < rank) this.free.fill(1, i * i + 2 * j, i * i + 2 * j + (j < i ? 2 : 1));
     this.gradient = new Float64Array(this.size);
     this.hessian = new Float64Array(this.size * this.size);
     this.mu = new Float64Array(model.rows);
@@ -49,6 +55,8 @@ export class PoissonNewton implements NewtonProblem {
     this.step = zeros(d);
     this.g = zeros(d);
     this.coupling = couplings(d);
+    this.lineLinear = new Float64Array(model.rows);
+    this.lineQuadratic = new Float64Array(model.rows);
   }
 
   /** μ_k, v_k, ∇μ_k, c_k, G and the gradient at θ. */
@@ -128,12 +136,12 @@ export class PoissonNewton implements NewtonProblem {
     for (let a = 0; a < size; a++) for (let b = 0; b < a; b++) h[b * size + a] = h[a * size + b];
   }
 
-  change(delta: Float64Array): number {
-    const { d, model, data, mu, vRe, vIm } = this;
+  /** Fixes the search direction δ: μ_k(θ + αδ) = μ_k + w_k (2α Re⟨v_k, u_k⟩ + α² ‖u_k‖²), u_k = Δ†ψ_k. */
+  setDirection(delta: Float64Array): void {
+    const { d, model, data, vRe, vIm, lineLinear, lineQuadratic } = this;
     const { psiRe, psiIm } = model;
     const sRe = this.step.re as Float64Array, sIm = this.step.im as Float64Array;
     unpackParameters(delta, d, sRe, sIm);
-    let total = 0;
     for (let k = 0; k < model.rows; k++) {
       const o = k * d;
       let cross = 0;
@@ -150,17 +158,38 @@ export class PoissonNewton implements NewtonProblem {
         cross += vRe[o + j] * ar + vIm[o + j] * ai;
         norm2 += ar * ar + ai * ai;
       }
-      const dm = data.weights[k] * (2 * cross + norm2);
+      lineLinear[k] = 2 * data.weights[k] * cross;
+      lineQuadratic[k] = data.weights[k] * norm2;
+    }
+  }
+
+  /**
+   * NLL(θ + αδ) − NLL(θ) and its first two derivatives in α, exact (log1p of the relative
+   * change of each μ_k); value +∞ where some μ_k with counts would reach 0.
+   */
+  along(alpha: number): LinePoint {
+    const { model, data, mu, lineLinear: b, lineQuadratic: c } = this;
+    let value = 0;
+    let slope = 0;
+    let curvature = 0;
+    for (let k = 0; k < model.rows; k++) {
+      const dm = alpha * (b[k] + alpha * c[k]);
+      const d1 = b[k] + 2 * alpha * c[k];
       const nk = data.counts[k];
       if (nk > 0) {
         const rel = dm / mu[k];
-        if (!(rel > -1)) return Infinity;
-        total += dm - nk * Math.log1p(rel);
+        if (!(rel > -1)) return { value: Infinity, slope: NaN, curvature: NaN };
+        const m = mu[k] + dm;
+        value += dm - nk * Math.log1p(rel);
+        slope += d1 * (1 - nk / m);
+        curvature += 2 * c[k] * (1 - nk / m) + (nk * d1 * d1) / (m * m);
       } else {
-        total += dm;
+        value += dm;
+        slope += d1;
+        curvature += 2 * c[k];
       }
     }
-    return total;
+    return { value, slope, curvature };
   }
 
   /** Optimality gap at the last evaluated point (see maximumLikelihood.ts). */

@@ -11,8 +11,8 @@ import { buildModel, type MeasurementModel } from "./measurementModel";
 import { prepareCounts, type CorrectionOptions, type PreparedCounts } from "./corrections";
 import { prepareLinearSystem, linearInversionSigma, type LinearSystem } from "./linearInversion";
 import { projectToDensityMatrix } from "./projectedLeastSquares";
-import { maximumLikelihood, rescaled, type MleOptions, type MleResult } from "./maximumLikelihood";
-import { expectedCounts, logLikelihood } from "./likelihood";
+import { maximumLikelihood, type MleOptions, type MleResult } from "./maximumLikelihood";
+import { expectedCounts, logLikelihood, rescaled } from "./likelihood";
 import { type CMatrix, hermitianPart, scale, toPlain, traceRe } from "./linalg/complexMatrix";
 import { hermitianEigenvalues } from "./linalg/hermitianEigen";
 import { DEFAULT_HANDEDNESS } from "./states";
@@ -86,7 +86,7 @@ export function solveProblem(problem: PreparedProblem, data: PreparedCounts, opt
   if (options.method === "linear") return { sigma: linear };
   const projected = projectedOrMixed(linear);
   if (options.method === "projected") return { sigma: rescaled(problem.model, data, projected) };
-  const mle = maximumLikelihood(problem.model, data, projected, options);
+  const mle = maximumLikelihood(problem.model, problem.linear, data, projected, options);
   return { sigma: mle.sigma, mle };
 }
 

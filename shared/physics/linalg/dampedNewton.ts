@@ -1,30 +1,40 @@
 /**
- * One Levenberg–Marquardt-damped Newton step: solve (H + λ·h̄·I) δ = −g, h̄ the mean Hessian
- * diagonal, and accept when the exact change of the objective is negative. The damping
- * follows the gain ratio ϱ = actual / predicted decrease as in Madsen, Nielsen, Tingleff,
- * "Methods for Non-Linear Least Squares Problems", 2nd ed. (DTU 2004), Eq. (2.21):
- * λ ← λ·max(1/10, 1 − (2ϱ − 1)³) on success, λ ← λ·ν, ν ← 2ν on failure.
+ * One step of Newton's method with an exact line search (Nocedal & Wright, "Numerical
+ * Optimization", 2nd ed., §3.1 and §3.4): direction δ = −(H + λ h̄ I)⁻¹ g, h̄ the mean Hessian
+ * diagonal, with the smallest shift λ ∈ {0, 1e-8, 1e-6, …, 1e4} that makes the matrix positive
+ * definite (far from the optimum the Hessian of a non-convex parametrisation can be
+ * indefinite); then α minimising f(θ + αδ) by safeguarded one-dimensional Newton steps on
+ * exact values and derivatives that the problem supplies.
  */
 import { choleskyInPlace, choleskySolveInPlace } from "./denseCholesky";
+
+export interface LinePoint {
+  value: number;
+  slope: number;
+  curvature: number;
+}
 
 export interface NewtonProblem {
   readonly size: number;
   readonly gradient: Float64Array;
   readonly hessian: Float64Array;
+  /** 1 for parameters that may move; frozen ones (0) keep their value. All free when absent. */
+  readonly free?: Uint8Array;
   buildHessian(): void;
-  /** Exact f(θ + δ) − f(θ) at the last evaluated θ. */
-  change(delta: Float64Array): number;
+  setDirection(delta: Float64Array): void;
+  /** f(θ + αδ) − f(θ) and its derivatives in α, at the last evaluated θ and set δ. */
+  along(alpha: number): LinePoint;
 }
 
 export interface NewtonStep {
-  damping: number;
-  /** Actual decrease of f achieved by the step. */
+  /** Decrease of f achieved by the step (> 0). */
   decrease: number;
+  alpha: number;
 }
 
-const MAX_ATTEMPTS = 40;
-const MIN_DAMPING = 1e-12;
-const FASTEST_DECREASE = 0.1;
+const SHIFTS = [0, 1e-8, 1e-6, 1e-4, 1e-2, 1, 1e2, 1e4];
+const LINE_ITERATIONS = 30;
+const MAX_ALPHA = 1e3;
 
 export class DampedNewton {
   private readonly shifted: Float64Array;
@@ -39,49 +49,81 @@ export class DampedNewton {
   }
 
   /** Updates θ in place; null when no step lowers f at double precision. */
-  step(theta: Float64Array, damping: number): NewtonStep | null {
-    const { problem, shifted, delta, rhs } = this;
+  step(theta: Float64Array): NewtonStep | null {
+    const { problem, delta } = this;
     const n = problem.size;
     problem.buildHessian();
+    if (!this.direction()) return null;
+    problem.setDirection(delta);
+    const alpha = lineMinimum(problem);
+    if (alpha === null) return null;
+    const decrease = -problem.along(alpha).value;
+    if (!(decrease > 0)) return null;
+    for (let i = 0; i < n; i++) theta[i] += alpha * delta[i];
+    return { decrease, alpha };
+  }
+
+  private direction(): boolean {
+    const { problem, shifted, delta, rhs } = this;
+    const n = problem.size;
     const h = problem.hessian;
-    const g = problem.gradient;
     let meanDiag = 0;
     for (let i = 0; i < n; i++) {
       meanDiag += h[i * n + i];
-      rhs[i] = -g[i];
+      rhs[i] = -problem.gradient[i];
     }
     meanDiag = Math.max(meanDiag / n, 1e-300);
-    let lambda = damping;
-    let nu = 2;
-    for (let attempt = 0; attempt < MAX_ATTEMPTS; attempt++) {
+    const free = problem.free;
+    for (const lambda of SHIFTS) {
       shifted.set(h);
       for (let i = 0; i < n; i++) shifted[i * n + i] += lambda * meanDiag;
+      if (free) freeze(shifted, rhs, free, n);
       if (choleskyInPlace(shifted, n)) {
         choleskySolveInPlace(shifted, n, rhs, delta);
-        const predicted = predictedDecrease(h, g, delta, n);
-        if (!(predicted > 0)) return null;
-        const actual = -problem.change(delta);
-        if (actual > 0) {
-          for (let i = 0; i < n; i++) theta[i] += delta[i];
-          const ratio = actual / predicted;
-          return { damping: Math.max(MIN_DAMPING, lambda * Math.max(FASTEST_DECREASE, 1 - (2 * ratio - 1) ** 3)), decrease: actual };
-        }
+        return true;
       }
-      lambda *= nu;
-      nu *= 2;
     }
-    return null;
+    return false;
   }
 }
 
-/** −(gᵀδ + ½ δᵀHδ) for the full symmetric H. */
-function predictedDecrease(h: Float64Array, g: Float64Array, delta: Float64Array, n: number): number {
-  let p = 0;
+/** Rows and columns of frozen parameters become those of the identity, their right-hand side 0. */
+function freeze(a: Float64Array, rhs: Float64Array, free: Uint8Array, n: number): void {
   for (let i = 0; i < n; i++) {
-    let hd = 0;
-    const ri = i * n;
-    for (let j = 0; j < n; j++) hd += h[ri + j] * delta[j];
-    p -= g[i] * delta[i] + 0.5 * delta[i] * hd;
+    if (free[i]) continue;
+    for (let j = 0; j < n; j++) a[i * n + j] = a[j * n + i] = 0;
+    a[i * n + i] = 1;
+    rhs[i] = 0;
   }
-  return p;
+}
+
+/** α > 0 with f'(α) ≈ 0 along the set direction, bracketed and safeguarded; null if f'(0) ≥ 0. */
+function lineMinimum(problem: NewtonProblem): number | null {
+  const start = problem.along(0);
+  if (!(start.slope < 0)) return null;
+  let lo = 0;
+  let hi = Infinity;
+  let alpha = 1;
+  let best = 0;
+  let bestValue = 0;
+  for (let it = 0; it < LINE_ITERATIONS; it++) {
+    const p = problem.along(alpha);
+    if (!Number.isFinite(p.value)) {
+      hi = alpha;
+      alpha = 0.5 * (lo + alpha);
+      continue;
+    }
+    if (p.value < bestValue) {
+      best = alpha;
+      bestValue = p.value;
+    }
+    if (p.slope < 0) lo = alpha;
+    else hi = alpha;
+    if (Math.abs(p.slope) <= 1e-12 * Math.abs(start.slope)) break;
+    let next = p.curvature > 0 ? alpha - p.slope / p.curvature : NaN;
+    if (!(next > lo && next < hi)) next = hi === Infinity ? Math.min(2 * alpha, MAX_ALPHA) : 0.5 * (lo + hi);
+    if (next === alpha || hi - lo <= 1e-15 * hi) break;
+    alpha = next;
+  }
+  return best > 0 ? best : null;
 }

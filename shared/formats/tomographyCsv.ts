@@ -1,0 +1,202 @@
+/**
+ * Rhomb's tomography counts CSV.
+ *
+ *   # comment lines start with '#'; anywhere in the file
+ *   basis,counts,seconds,singles_a,singles_b,monitor
+ *   HH,1234,1,40000,38000
+ *
+ * - Header (first non-comment line) with at least `basis,counts`; optional `seconds` (exposure,
+ *   default 1), `singles_a` and `singles_b` (detector singles during the exposure; both or
+ *   neither) and `monitor` (a drift-monitor reading). Column names are case-insensitive.
+ * - Unknown columns are rejected, not ignored: a misspelt "singels_a" must not silently turn
+ *   accidental subtraction off. So is a column named twice.
+ * - basis: 1–4 letters from H V D A R L, photon A first, the same length in every row.
+ * - counts and singles: whole numbers 0 … 10^15 written as digits; seconds > 0 and ≤ 10^7;
+ *   monitor > 0. A repeated setting is rejected (usually a copy-paste slip) unless the caller
+ *   allows repeats.
+ * - Delimiter: comma, or semicolon/tab as spreadsheets in some locales write them.
+ * Errors name the row (the line number in the file, as an editor shows it) and the column:
+ *   row 7, column "counts": "12x" is not a whole number ≥ 0
+ */
+import Papa from "papaparse";
+import type { CountsRow } from "../physics/types";
+
+/** Same limits as the run schema (shared/schemas/runs.ts). */
+export const CSV_COUNTS_MAX = 1e15;
+export const CSV_SECONDS_MAX = 1e7;
+export const CSV_COLUMNS = ["basis", "counts", "seconds", "singles_a", "singles_b", "monitor"] as const;
+type Column = (typeof CSV_COLUMNS)[number];
+
+export interface TomographyCsvOptions {
+  /** Every row must carry singles (for accidental subtraction). */
+  requireSingles?: boolean;
+  /** Accept the same setting on several rows (repeated measurements). */
+  allowRepeats?: boolean;
+}
+
+export interface ParsedTomographyCsv {
+  rows: CountsRow[];
+  /** File line number of each row. */
+  lines: number[];
+  photons: number;
+  columns: Column[];
+  /** Text of the comment lines, without the '#'. */
+  comments: string[];
+}
+
+export class TomographyCsvError extends Error {
+  constructor(readonly row: number, readonly column: string | null, detail: string) {
+    super(column === null ? `row ${row}: ${detail}` : `row ${row}, column "${column}": ${detail}`);
+    this.name = "TomographyCsvError";
+  }
+}
+
+export function parseTomographyCsv(input: string, options: TomographyCsvOptions = {}): ParsedTomographyCsv {
+  const text = input.replace(/^\uFEFF/, "");
+  const newlines: number[] = [];
+  for (let i = 0; i < text.length; i++) if (text[i] === "\n") newlines.push(i);
+  const records: { fields: string[]; line: number }[] = [];
+  let parseError: TomographyCsvError | null = null;
+  Papa.parse<string[]>(text, {
+    comments: "#",
+    skipEmptyLines: "greedy",
+    delimitersToGuess: [",", ";", "\t"],
+    step: (result, parser) => {
+      const line = lineOf(text, newlines, result.meta.cursor);
+      if (result.errors.length) {
+        parseError = new TomographyCsvError(line, null, result.errors[0].message);
+        parser.abort();
+        return;
+      }
+      records.push({ fields: result.data, line });
+    },
+  });
+  if (parseError) throw parseError;
+  const comments = text.split(/\r?\n/).filter((l) => l.trimStart().startsWith("#")).map((l) => l.trimStart().slice(1).trim());
+  if (records.length === 0) {
+    throw new TomographyCsvError(1, null, "the file is empty (expected a header with at least basis,counts)");
+  }
+  const header = readHeader(records[0], options);
+  if (records.length === 1) throw new TomographyCsvError(records[0].line, null, "there are no data rows after the header");
+
+  const rows: CountsRow[] = [];
+  const lines: number[] = [];
+  const seen = new Map<string, number>();
+  let photons = 0;
+  for (const { fields, line } of records.slice(1)) {
+    if (fields.length > header.length) {
+      throw new TomographyCsvError(line, null, `${fields.length} values but the header has ${header.length} columns`);
+    }
+    const value = (c: Column) => fields[header.indexOf(c)]?.trim() ?? "";
+    const basis = value("basis").toUpperCase();
+    if (!/^[HVDARL]{1,4}$/.test(basis)) {
+      throw new TomographyCsvError(line, "basis", `${quote(value("basis"))} is not 1–4 letters from H, V, D, A, R, L (photon A first)`);
+    }
+    if (photons === 0) photons = basis.length;
+    else if (basis.length !== photons) {
+      throw new TomographyCsvError(line, "basis", `"${basis}" names ${basis.length} photon(s) but row ${lines[0]} names ${photons}`);
+    }
+    if (seen.has(basis) && !options.allowRepeats) {
+      throw new TomographyCsvError(line, "basis", `"${basis}" repeats row ${seen.get(basis)}`);
+    }
+    seen.set(basis, line);
+    const row: CountsRow = { setting: basis, counts: wholeNumber(value("counts"), line, "counts", true)! };
+    if (header.includes("seconds")) row.seconds = positiveNumber(value("seconds"), line, "seconds", CSV_SECONDS_MAX, true);
+    if (header.includes("singles_a")) {
+      const a = wholeNumber(value("singles_a"), line, "singles_a", !!options.requireSingles);
+      const b = wholeNumber(value("singles_b"), line, "singles_b", !!options.requireSingles);
+      if ((a === undefined) !== (b === undefined)) {
+        throw new TomographyCsvError(line, a === undefined ? "singles_a" : "singles_b", "empty, but the other singles value is given (give both or neither)");
+      }
+      if (a !== undefined) row.singlesA = a;
+      if (b !== undefined) row.singlesB = b;
+    }
+    if (header.includes("monitor")) {
+      const m = positiveNumber(value("monitor"), line, "monitor", Infinity, false);
+      if (m !== undefined) row.monitor = m;
+    }
+    rows.push(row);
+    lines.push(line);
+  }
+  return { rows, lines, photons, columns: header, comments };
+}
+
+function readHeader(record: { fields: string[]; line: number }, options: TomographyCsvOptions): Column[] {
+  const names = record.fields.map((f) => f.trim().toLowerCase());
+  names.forEach((n, i) => {
+    if (!(CSV_COLUMNS as readonly string[]).includes(n)) {
+      const hint = /^\d/.test(n) ? " — is the header line missing?" : "";
+      throw new TomographyCsvError(record.line, record.fields[i].trim(), `unknown column (allowed: ${CSV_COLUMNS.join(", ")})${hint}`);
+    }
+    if (names.indexOf(n) !== i) throw new TomographyCsvError(record.line, n, "appears twice in the header");
+  });
+  for (const required of ["basis", "counts"] as const) {
+    if (!names.includes(required)) throw new TomographyCsvError(record.line, required, "missing from the header (it needs at least basis,counts)");
+  }
+  const hasA = names.includes("singles_a");
+  const hasB = names.includes("singles_b");
+  if (hasA !== hasB) throw new TomographyCsvError(record.line, hasA ? "singles_b" : "singles_a", "missing from the header (singles_a and singles_b come together)");
+  if (options.requireSingles && !hasA) {
+    throw new TomographyCsvError(record.line, "singles_a", "missing from the header; accidental subtraction needs singles_a and singles_b");
+  }
+  return names as Column[];
+}
+
+function wholeNumber(raw: string, line: number, column: Column, required: boolean): number | undefined {
+  if (raw === "") {
+    if (required) throw new TomographyCsvError(line, column, "empty (a whole number ≥ 0 is required)");
+    return undefined;
+  }
+  if (!/^\d+$/.test(raw)) throw new TomographyCsvError(line, column, `${quote(raw)} is not a whole number ≥ 0`);
+  const n = Number(raw);
+  if (n > CSV_COUNTS_MAX) throw new TomographyCsvError(line, column, `${quote(raw)} is larger than the limit of 10^15`);
+  return n;
+}
+
+function positiveNumber(raw: string, line: number, column: Column, max: number, defaultOne: boolean): number | undefined {
+  if (raw === "") return defaultOne ? 1 : undefined;
+  const n = /^(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(raw) ? Number(raw) : NaN;
+  if (!(n > 0) || !Number.isFinite(n)) throw new TomographyCsvError(line, column, `${quote(raw)} is not a number > 0`);
+  if (n > max) throw new TomographyCsvError(line, column, `${quote(raw)} is larger than the limit of ${max.toExponential(0).replace("e+", "e")}`);
+  return n;
+}
+
+function quote(raw: string): string {
+  return JSON.stringify(raw.length > 40 ? `${raw.slice(0, 40)}…` : raw);
+}
+
+/** 1-based line of the row that ends just before `cursor`. */
+function lineOf(text: string, newlines: number[], cursor: number): number {
+  let q = cursor - 1;
+  while (q > 0 && (text[q] === "\n" || text[q] === "\r")) q--;
+  let lo = 0;
+  let hi = newlines.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (newlines[mid] < q) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo + 1;
+}
+
+/**
+ * Writes rows with label settings in the same format (the inverse of parseTomographyCsv).
+ * Columns that no row uses are left out; comment lines come first.
+ */
+export function writeTomographyCsv(rows: readonly CountsRow[], comments: readonly string[] = []): string {
+  const has = (pick: (r: CountsRow) => unknown) => rows.some((r) => pick(r) !== undefined);
+  const columns: [Column, (r: CountsRow) => unknown][] = [
+    ["basis", (r) => r.setting],
+    ["counts", (r) => r.counts],
+  ];
+  if (has((r) => r.seconds)) columns.push(["seconds", (r) => r.seconds ?? 1]);
+  if (has((r) => r.singlesA ?? r.singlesB)) columns.push(["singles_a", (r) => r.singlesA], ["singles_b", (r) => r.singlesB]);
+  if (has((r) => r.monitor)) columns.push(["monitor", (r) => r.monitor]);
+  const lines = comments.map((c) => `# ${c}`);
+  lines.push(columns.map(([name]) => name).join(","));
+  for (const r of rows) {
+    if (typeof r.setting !== "string") throw new Error("only label settings can be written to the counts CSV");
+    lines.push(columns.map(([, pick]) => String(pick(r) ?? "")).join(","));
+  }
+  return `${lines.join("\n")}\n`;
+}

@@ -1,0 +1,88 @@
+/**
+ * The Poisson likelihood over all Hermitian σ (no positivity), in Pauli coordinates x
+ * (σ = (1/d) Σ_j x_j Γ_j, see pauliBasis.ts): μ_k = w_k a_kᵀx is linear, so NLL(x) is convex
+ * with gradient Σ_k c_k w_k a_k (c_k = 1 − n_k/μ_k) and Hessian Σ_k (n_k/μ_k²) w_k² a_k a_kᵀ.
+ * Newton converges quadratically here; its optimum is the maximum-likelihood state whenever
+ * that lies inside the cone of positive matrices, and otherwise a good start for the
+ * positive-semidefinite search (maximumLikelihood.ts). Only defined when every row has
+ * counts (a row with n_k = 0 would let μ_k run to −∞).
+ */
+import type { PreparedCounts } from "./corrections";
+import type { LinearSystem } from "./linearInversion";
+import type { LinePoint, NewtonProblem } from "./linalg/dampedNewton";
+
+export class UnconstrainedPoisson implements NewtonProblem {
+  readonly size: number;
+  readonly gradient: Float64Array;
+  readonly hessian: Float64Array;
+  private readonly mu: Float64Array;
+  private readonly change: Float64Array;
+  private readonly wa: Float64Array;
+
+  constructor(private readonly linear: LinearSystem, private readonly data: PreparedCounts) {
+    const p = linear.params;
+    this.size = p;
+    this.gradient = new Float64Array(p);
+    this.hessian = new Float64Array(p * p);
+    this.mu = new Float64Array(linear.rows);
+    this.change = new Float64Array(linear.rows);
+    // w_k a_k, the gradient of μ_k
+    this.wa = linear.design.map((v, i) => v * data.weights[Math.floor(i / p)]);
+  }
+
+  /** μ and the gradient at x; false if some μ_k ≤ 0. */
+  evaluate(x: Float64Array): boolean {
+    const { size: p, wa, mu, gradient, data } = this;
+    gradient.fill(0);
+    for (let k = 0; k < this.linear.rows; k++) {
+      let m = 0;
+      for (let j = 0; j < p; j++) m += wa[k * p + j] * x[j];
+      mu[k] = m;
+      if (!(m > 0)) return false;
+      const c = 1 - data.counts[k] / m;
+      for (let j = 0; j < p; j++) gradient[j] += c * wa[k * p + j];
+    }
+    return true;
+  }
+
+  buildHessian(): void {
+    const { size: p, wa, mu, hessian: h, data } = this;
+    h.fill(0);
+    for (let k = 0; k < this.linear.rows; k++) {
+      const s = data.counts[k] / (mu[k] * mu[k]);
+      for (let a = 0; a < p; a++) {
+        const ga = s * wa[k * p + a];
+        if (ga === 0) continue;
+        for (let b = 0; b <= a; b++) h[a * p + b] += ga * wa[k * p + b];
+      }
+    }
+    for (let a = 0; a < p; a++) for (let b = 0; b < a; b++) h[b * p + a] = h[a * p + b];
+  }
+
+  setDirection(delta: Float64Array): void {
+    const { size: p, wa, change } = this;
+    for (let k = 0; k < this.linear.rows; k++) {
+      let m = 0;
+      for (let j = 0; j < p; j++) m += wa[k * p + j] * delta[j];
+      change[k] = m;
+    }
+  }
+
+  along(alpha: number): LinePoint {
+    const { mu, change, data } = this;
+    let value = 0;
+    let slope = 0;
+    let curvature = 0;
+    for (let k = 0; k < this.linear.rows; k++) {
+      const dm = alpha * change[k];
+      const rel = dm / mu[k];
+      if (!(rel > -1)) return { value: Infinity, slope: NaN, curvature: NaN };
+      const m = mu[k] + dm;
+      const n = data.counts[k];
+      value += dm - n * Math.log1p(rel);
+      slope += change[k] * (1 - n / m);
+      curvature += (n * change[k] * change[k]) / (m * m);
+    }
+    return { value, slope, curvature };
+  }
+}
