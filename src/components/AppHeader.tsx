@@ -22,6 +22,7 @@ function useNav(): NavItem[] {
     { to: `/labs/${labId}`, label: "Lab home", end: true },
     { to: `/labs/${labId}/sources`, label: "Sources" },
     { to: `/labs/${labId}/compare`, label: "Compare" },
+    { to: `/labs/${labId}/members`, label: "People" },
     ...NAV.filter((n) => n.to !== "/"),
   ];
 }
@@ -38,12 +39,12 @@ export function AppHeader({ nav: navProp, right }: { nav?: NavItem[]; right?: Re
   const nav = navProp ?? labNav;
   return (
     <header className="border-b-2 border-petrol-700 bg-paper-raised">
-      <div className="mx-auto flex max-w-7xl items-center gap-6 px-4 py-2.5">
+      <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-2.5">
         <Link to="/" className="flex items-center gap-2 text-petrol-700" aria-label="Rhomb home">
           <RhombMark />
           <span className="text-xl font-bold tracking-tight text-ink">Rhomb</span>
         </Link>
-        <nav aria-label="Main" className="flex items-center gap-1">
+        <nav aria-label="Main" className="flex flex-wrap items-center gap-1">
           {nav.map((item) => (
             <NavLink key={item.to} to={item.to} end={item.end} className={linkClass}>
               {item.label}
