@@ -32,6 +32,7 @@ import { newLinkToken } from "../../server/services/linkTokens";
 import { TEST_PASSWORD, createUser, labWithRoles, type LabFixture, type TestClient } from "../support/clients";
 import { psiMinusRows } from "../support/notebook";
 import { writeTomographyCsv } from "@shared/formats/tomographyCsv";
+import { STANDARD_BELL_ANGLES, bellTestSettings, fringeScanSettings } from "@shared/physics/bell";
 import { startTestApp, type TestApp } from "../support/testApp";
 
 const CALLERS = ["anonymous", "outsider", "viewer", "member", "owner"] as const;
@@ -58,6 +59,8 @@ interface Ctx {
   secondRun(): Promise<{ id: string; rows: object[]; reconstructionId: string }>;
   /** The attachment of a run uploaded as a counts file (created once per row). */
   attachment(): Promise<string>;
+  /** A Bell-test or fringe-scan run in that session, given as waveplate angles (created once per row). */
+  analysisRun(kind: "bell" | "fringe"): Promise<string>;
   /** A new viewer of the lab, e.g. someone to remove. */
   addViewer(): Promise<User>;
   /** An open invitation into the lab; returns its id and the link's token. */
@@ -158,6 +161,11 @@ const ROWS: Record<string, Row> = {
   "GET /api/labs/:labId/reconstructions/:reconstructionId": { expect: LAB_READ(), request: async (c) => ({ path: `/api/labs/${c.lab}/reconstructions/${(await c.run()).reconstructionId}` }) },
   "GET /api/labs/:labId/compare": { expect: LAB_READ(), request: async (c) => ({ path: `/api/labs/${c.lab}/compare?runs=${(await c.run()).id},${(await c.secondRun()).id}` }) },
 
+  // Bell tests, fringe scans and trends (read-only analyses)
+  "GET /api/labs/:labId/runs/:runId/bell-test": { expect: LAB_READ(), request: async (c) => ({ path: `/api/labs/${c.lab}/runs/${await c.analysisRun("bell")}/bell-test` }) },
+  "GET /api/labs/:labId/runs/:runId/fringe-fit": { expect: LAB_READ(), request: async (c) => ({ path: `/api/labs/${c.lab}/runs/${await c.analysisRun("fringe")}/fringe-fit` }) },
+  "GET /api/labs/:labId/trends": { expect: LAB_READ(), request: async (c) => ({ path: `/api/labs/${c.lab}/trends?sessionId=${await c.labSession()}` }) },
+
   // Personal API tokens: anyone signed in manages their own; creating one needs write access to its lab
   "GET /api/tokens": { expect: SIGNED_IN(), request: () => ({ path: "/api/tokens" }) },
   "GET /api/tokens/current": { expect: SIGNED_IN(), request: () => ({ path: "/api/tokens/current" }) },
@@ -198,6 +206,11 @@ function makeCtx(t: TestApp, f: LabFixture): Ctx {
     await created(res, "an uploaded run");
     return res.body.attachments[0].id as string;
   });
+  const analysisRun = async (kind: "bell" | "fringe") => {
+    const settings = kind === "bell" ? bellTestSettings(STANDARD_BELL_ANGLES) : fringeScanSettings(0, [0, 45, 90, 135]);
+    const rows = settings.map((setting, i) => ({ setting, counts: 100 + 37 * (i % 4) }));
+    return created(await owner.post(`/api/labs/${lab}/sessions/${await labSession()}/runs`, { kind, settingSetId: "custom", name: unique(`Matrix ${kind} run`), rows }), `a ${kind} run`);
+  };
   return {
     t,
     f,
@@ -207,6 +220,7 @@ function makeCtx(t: TestApp, f: LabFixture): Ctx {
     run,
     secondRun,
     attachment,
+    analysisRun,
     async addViewer() {
       const user = await createUser(t, "Extra viewer");
       await t.dataSource.getRepository(LabMembership).save({ labId: lab, userId: user.id, role: "viewer" });
