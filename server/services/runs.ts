@@ -36,21 +36,28 @@ export async function createRun(user: AuthUser, labId: string, sessionId: string
   const labSession = await findLabSession(labId, sessionId);
   const computed = input.kind === "tomography" ? await computeOnSave(labSession, input.settingSetId, input.rows, input.reconstruction, "reconstruction.corrections") : [];
   return db().transaction(async (em) => {
-    const run = await em.save(
-      em.create(Run, { labId, sessionId, kind: input.kind, settingSetId: input.settingSetId, name: input.name, notes: input.notes, conditions: input.conditions, currentRevision: 1, createdById: user.id }),
-    );
-    const revision = await saveRevision(em, user, run, 1, input.rows, "", []);
-    await saveReconstructions(em, user, run, revision, computed);
-    if (file) await em.insert(Attachment, { labId, runId: run.id, fileName: file.fileName, contentType: file.contentType, sizeBytes: file.content.length, sha256: file.sha256, content: file.content, createdById: user.id });
-    await recordAudit(em, user, {
-      labId,
-      action: file ? "run.upload" : "run.create",
-      entityType: "run",
-      entityId: run.id,
-      changes: { name: input.name, kind: input.kind, settingSetId: input.settingSetId, rows: input.rows.length, ...(file && { file: file.fileName, sha256: file.sha256 }) },
-    });
+    const run = await storeRun(em, user, labSession, input, computed, file);
     return loadRunDetail(labId, run.id, em);
   });
+}
+
+/** The writes of a new run inside the caller's transaction (the API's and the demo seed's). */
+export async function storeRun(em: EntityManager, user: AuthUser, labSession: LabSession, input: CreateRun, computed: ComputedReconstruction[], file?: UploadedFile): Promise<{ id: string; revisionId: string }> {
+  const { labId } = labSession;
+  const run = await em.save(
+    em.create(Run, { labId, sessionId: labSession.id, kind: input.kind, settingSetId: input.settingSetId, name: input.name, notes: input.notes, conditions: input.conditions, currentRevision: 1, createdById: user.id }),
+  );
+  const revision = await saveRevision(em, user, run, 1, input.rows, "", []);
+  await saveReconstructions(em, user, run, revision, computed);
+  if (file) await em.insert(Attachment, { labId, runId: run.id, fileName: file.fileName, contentType: file.contentType, sizeBytes: file.content.length, sha256: file.sha256, content: file.content, createdById: user.id });
+  await recordAudit(em, user, {
+    labId,
+    action: file ? "run.upload" : "run.create",
+    entityType: "run",
+    entityId: run.id,
+    changes: { name: input.name, kind: input.kind, settingSetId: input.settingSetId, rows: input.rows.length, ...(file && { file: file.fileName, sha256: file.sha256 }) },
+  });
+  return { id: run.id, revisionId: revision.id };
 }
 
 /** Name, notes and conditions only; counts never change in place. */
@@ -108,25 +115,26 @@ export async function addReconstruction(user: AuthUser, labId: string, runId: st
   });
 }
 
-async function computeOnSave(
+/** Linear inversion and maximum likelihood of freshly saved counts; `labSession.source` must be loaded. */
+export async function computeOnSave(
   labSession: LabSession,
   settingSetId: CreateRun["settingSetId"],
   rows: CountsRowDto[],
   options: { corrections: Corrections; monteCarloSamples: number } | undefined,
   fieldPrefix: string,
+  seed = newSeed(),
 ): Promise<ComputedReconstruction[]> {
-  const seed = newSeed();
   const corrections = options?.corrections ?? { accidentals: false, windowNs: null, efficiencies: null, drift: "none" as const };
   const samples = options?.monteCarloSamples ?? LIMITS.monteCarloDefault;
   const target = labSession.source!.targetState;
   return Promise.all(ON_SAVE.map((method) => computeReconstruction({ rows, settingSetId, labSession, target, method, corrections, samples, seed, fieldPrefix })));
 }
 
-async function saveRevision(em: EntityManager, user: AuthUser, run: Run, number: number, rows: CountsRowDto[], reason: string, changes: RunRevision["changes"]): Promise<RunRevision> {
+export async function saveRevision(em: EntityManager, user: AuthUser, run: Run, number: number, rows: CountsRowDto[], reason: string, changes: RunRevision["changes"]): Promise<RunRevision> {
   return em.save(em.create(RunRevision, { labId: run.labId, runId: run.id, number, rows, rowCount: rows.length, totalCounts: totalCounts(rows), reason, changes, createdById: user.id }));
 }
 
-async function saveReconstructions(em: EntityManager, user: AuthUser, run: Run, revision: RunRevision, computed: ComputedReconstruction[]): Promise<Reconstruction[]> {
+export async function saveReconstructions(em: EntityManager, user: AuthUser, run: Pick<Run, "id" | "labId">, revision: Pick<RunRevision, "id">, computed: ComputedReconstruction[]): Promise<Reconstruction[]> {
   const saved: Reconstruction[] = [];
   for (const c of computed) saved.push(await em.save(em.create(Reconstruction, { ...c, labId: run.labId, runId: run.id, revisionId: revision.id, createdById: user.id })));
   return saved;
