@@ -1,0 +1,66 @@
+import type { BundleRun, SessionBundle } from "@shared/schemas/bundle";
+import type { Attachment } from "../entities/Attachment";
+import type { LabSession } from "../entities/LabSession";
+import type { Reconstruction } from "../entities/Reconstruction";
+import type { Run } from "../entities/Run";
+import type { RunRevision } from "../entities/RunRevision";
+import type { Source } from "../entities/Source";
+import { NO_CONDITIONS } from "../presenters/sharedSnapshot";
+
+/**
+ * Entities → the parts of a session bundle, field by field (never spread from an entity, so no
+ * id, lab id or account can slip in).
+ */
+export function bundleSource(s: Source): SessionBundle["source"] {
+  return { name: s.name, crystal: s.crystal, pumpLaser: s.pumpLaser, wavelengthNm: s.wavelengthNm, targetState: s.targetState, notes: s.notes };
+}
+
+/** Private notes are left out (empty, still marked private) unless the caller asks for them. */
+export function bundleSession(s: LabSession, includePrivateNotes: boolean): SessionBundle["session"] {
+  return {
+    title: s.title,
+    date: s.date,
+    people: s.people,
+    pumpWavelengthNm: s.pumpWavelengthNm,
+    pumpPowerMw: s.pumpPowerMw,
+    crystalTemperatureC: s.crystalTemperatureC,
+    coincidenceWindowNs: s.coincidenceWindowNs,
+    detectors: s.detectors,
+    analyser: s.analyser,
+    calibration: s.calibration,
+    handedness: s.handedness,
+    notes: s.notesPrivate && !includePrivateNotes ? "" : s.notes,
+    notesPrivate: s.notesPrivate,
+  };
+}
+
+export function bundleRun(run: Run, revisions: RunRevision[], reconstructions: Reconstruction[], attachments: Attachment[]): BundleRun {
+  const numberOf = new Map(revisions.map((r) => [r.id, r.number]));
+  return {
+    name: run.name,
+    kind: run.kind,
+    settingSetId: run.settingSetId,
+    notes: run.notes,
+    conditions: { ...NO_CONDITIONS, ...run.conditions },
+    currentRevision: run.currentRevision,
+    createdAt: run.createdAt.toISOString(),
+    revisions: revisions.map((v) => ({ number: v.number, rows: v.rows, reason: v.reason, changes: v.changes, createdAt: v.createdAt.toISOString() })),
+    reconstructions: reconstructions.map((c) => ({
+      revisionNumber: numberOf.get(c.revisionId)!,
+      method: c.method,
+      corrections: c.corrections,
+      conventions: c.conventions,
+      rho: c.rho,
+      eigenvalues: c.eigenvalues,
+      physical: c.physical,
+      metrics: c.metrics,
+      uncertainties: c.uncertainties && c.monteCarloSeed !== null ? { samples: c.monteCarloSamples, seed: c.monteCarloSeed, metrics: c.uncertainties.metrics, rho: c.uncertainties.rho } : null,
+      fit: { logLikelihood: c.logLikelihood, iterations: c.iterations, converged: c.converged, tolerance: c.tolerance },
+      counts: { total: c.totalCounts, clippedRows: c.clippedRows },
+      warnings: c.warnings.map((w) => ({ code: w.code, message: w.message })),
+      engineVersion: c.engineVersion,
+      createdAt: c.createdAt.toISOString(),
+    })),
+    attachments: attachments.map((a) => ({ fileName: a.fileName, contentType: a.contentType, sizeBytes: a.sizeBytes, sha256: a.sha256, contentBase64: a.content.toString("base64"), createdAt: a.createdAt.toISOString() })),
+  };
+}
