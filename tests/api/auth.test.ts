@@ -1,6 +1,7 @@
 import { randomUUID } from "node:crypto";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { MeSchema } from "@shared/schemas/auth";
+import { resetConfigForTests } from "../../server/config";
 import { EmailToken } from "../../server/entities/EmailToken";
 import { User } from "../../server/entities/User";
 import { TEST_PASSWORD, TestClient, createUser, signedInClient } from "../support/clients";
@@ -167,5 +168,27 @@ describe("own account", () => {
     await client.post("/api/account/password", { currentPassword: TEST_PASSWORD, newPassword: "fresh-photon-path" }).expect(204);
     await client.get("/api/auth/me").expect(200);
     await other.get("/api/auth/me").expect(401);
+  });
+});
+
+describe("cookies behind an HTTPS proxy", () => {
+  let t: TestApp;
+  beforeAll(async () => {
+    process.env.TRUST_PROXY = "true";
+    resetConfigForTests();
+    t = await startTestApp();
+  });
+  afterAll(async () => {
+    delete process.env.TRUST_PROXY;
+    resetConfigForTests();
+    await t.close();
+  });
+
+  it("marks the sign-in cookie Secure when the proxy says the request came over HTTPS (COOKIE_SECURE=auto)", async () => {
+    const user = await createUser(t, "Behind proxy");
+    const client = new TestClient(t);
+    client.setHeader("X-Forwarded-Proto", "https");
+    const res = await client.post("/api/auth/sign-in", { email: user.email, password: TEST_PASSWORD }).expect(200);
+    expect(String(res.headers["set-cookie"])).toMatch(/rhomb\.sid=[^;]+;.*Secure/i);
   });
 });
