@@ -2,6 +2,9 @@ import "reflect-metadata";
 import { createDataSource } from "./dataSource";
 import { loadConfig } from "../config";
 import { seedDemoAccounts } from "./seeds/demoAccounts";
+import { seedDemoNotebook } from "./seeds/demoNotebook";
+import { seedDemoBellFringe } from "./seeds/demoBellFringe";
+import { seedDemoShares } from "./seeds/demoShares";
 
 /**
  * `npm run seed`: the invented demo lab (see README "Demo data"). Idempotent — running it again
@@ -12,7 +15,10 @@ async function main(): Promise<void> {
   await ds.initialize();
   try {
     await ds.transaction(async (em) => {
-      await seedDemoAccounts(em);
+      const { lab, users } = await seedDemoAccounts(em);
+      await seedDemoNotebook(em, lab, users);
+      await seedDemoBellFringe(em, lab, users);
+      await seedDemoShares(em);
     });
     console.log("[rhomb] demo data is in place");
   } finally {
