@@ -55,7 +55,7 @@ export class TestClient {
   /** The session's CSRF token, fetched once and then kept up to date from response headers. */
   async csrf(): Promise<string> {
     if (!this.csrfToken) {
-      const res = await this.agent.get("/api/auth/csrf-token").set(this.extraHeaders);
+      const res = await this.agent.get("/api/auth/csrf-token");
       if (res.status !== 200) throw new Error(`could not get a CSRF token: ${res.status} ${JSON.stringify(res.body)}`);
       this.csrfToken = res.body.token;
     }
