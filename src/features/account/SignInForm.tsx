@@ -34,7 +34,7 @@ export function SignInForm({ next, defaultEmail = "" }: { next: string; defaultE
 
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4">
-      <FormAlert message={errors.root?.server?.message} title={unverifiedEmail ? "Confirm your e-mail address" : "Could not sign in"} />
+      <FormAlert message={errors.root?.server?.message} title={unverifiedEmail ? "Confirm your e-mail address" : "Could not sign in"} kind={unverifiedEmail ? "caution" : "error"} />
       {unverifiedEmail && (
         <div className="-mt-2">
           {resend.isSuccess ? (
