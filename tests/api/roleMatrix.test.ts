@@ -27,6 +27,7 @@ import { ApiToken } from "../../server/entities/ApiToken";
 import { EmailToken } from "../../server/entities/EmailToken";
 import { Invitation } from "../../server/entities/Invitation";
 import { LabMembership } from "../../server/entities/LabMembership";
+import { Share } from "../../server/entities/Share";
 import { User } from "../../server/entities/User";
 import { newLinkToken } from "../../server/services/linkTokens";
 import { TEST_PASSWORD, createUser, labWithRoles, type LabFixture, type TestClient } from "../support/clients";
@@ -67,6 +68,12 @@ interface Ctx {
   invite(): Promise<{ id: string; token: string }>;
   /** A user with a one-time e-mail link of the given purpose. */
   emailLink(purpose: "verify-email" | "reset-password"): Promise<string>;
+  /** A fresh link share of the lab session; returns its id and the link's token. */
+  linkShare(): Promise<{ id: string; token: string }>;
+  /** A fresh guest share of the lab session for `email`; returns its id. */
+  guestShare(email: string): Promise<string>;
+  /** The lab session exported as a session bundle (parsed JSON). */
+  bundle(): Promise<object>;
 }
 
 /** `file`: send multipart/form-data with this file in the field "file" (and `body` as text fields). */
@@ -179,6 +186,21 @@ const ROWS: Record<string, Row> = {
       return { path: `/api/tokens/${token.id}` };
     },
   },
+
+  // Shares, exports and session bundles: everyone in the lab lists and exports; members share, revoke and import
+  "GET /api/labs/:labId/shares": { expect: LAB_READ(), request: (c) => ({ path: `/api/labs/${c.lab}/shares` }) },
+  "POST /api/labs/:labId/shares": { expect: LAB_WRITE(201), request: async (c) => ({ path: `/api/labs/${c.lab}/shares`, body: { kind: "link", itemType: "session", itemId: await c.labSession() } }) },
+  "POST /api/labs/:labId/shares/:shareId/revoke": { expect: LAB_WRITE(), request: async (c) => ({ path: `/api/labs/${c.lab}/shares/${(await c.linkShare()).id}/revoke` }) },
+  // A link opens for whoever holds it; a guest share for the signed-in account of the address it names.
+  "POST /api/shared/view": { expect: PUBLIC(), request: async (c) => ({ path: "/api/shared/view", body: { token: (await c.linkShare()).token } }) },
+  "GET /api/guest/shares": { expect: SIGNED_IN(), request: () => ({ path: "/api/guest/shares" }) },
+  "GET /api/guest/shares/:shareId": { expect: SIGNED_IN(), request: async (c, caller) => ({ path: `/api/guest/shares/${await c.guestShare(caller === "anonymous" ? fresh("guest") : c.f.users[caller].email)}` }) },
+  "GET /api/labs/:labId/runs/:runId/counts.csv": { expect: LAB_READ(), request: async (c) => ({ path: `/api/labs/${c.lab}/runs/${(await c.run()).id}/counts.csv` }) },
+  "GET /api/labs/:labId/reconstructions/:reconstructionId/export/:file": { expect: LAB_READ(), request: async (c) => ({ path: `/api/labs/${c.lab}/reconstructions/${(await c.run()).reconstructionId}/export/rho.json` }) },
+  "GET /api/labs/:labId/sessions/:sessionId/export/:file": { expect: LAB_READ(), request: async (c) => ({ path: `/api/labs/${c.lab}/sessions/${await c.labSession()}/export/metrics.csv` }) },
+  "GET /api/labs/:labId/reports/:itemType/:itemId": { expect: LAB_READ(), request: async (c) => ({ path: `/api/labs/${c.lab}/reports/run/${(await c.run()).id}` }) },
+  "GET /api/labs/:labId/sessions/:sessionId/bundle": { expect: LAB_READ(), request: async (c) => ({ path: `/api/labs/${c.lab}/sessions/${await c.labSession()}/bundle` }) },
+  "POST /api/labs/:labId/bundles": { expect: LAB_WRITE(201), request: async (c) => ({ path: `/api/labs/${c.lab}/bundles`, body: { bundle: await c.bundle() } }) },
 };
 
 function once<T>(make: () => Promise<T>): () => Promise<T> {
@@ -236,6 +258,20 @@ function makeCtx(t: TestApp, f: LabFixture): Ctx {
       const { token, sha256 } = newLinkToken();
       await t.dataSource.getRepository(EmailToken).save({ userId: user.id, purpose, tokenSha256: sha256, expiresAt: new Date(Date.now() + 3_600_000), usedAt: null });
       return token;
+    },
+    async linkShare() {
+      const { token, sha256 } = newLinkToken();
+      const share = await t.dataSource.getRepository(Share).save({ labId: lab, kind: "link", itemType: "session", sessionId: await labSession(), tokenSha256: sha256, createdById: f.users.owner.id });
+      return { id: share.id, token };
+    },
+    async guestShare(email) {
+      const share = await t.dataSource.getRepository(Share).save({ labId: lab, kind: "guest", itemType: "session", sessionId: await labSession(), email: email.toLowerCase(), createdById: f.users.owner.id });
+      return share.id;
+    },
+    async bundle() {
+      const res = await owner.get(`/api/labs/${lab}/sessions/${await labSession()}/bundle`);
+      if (res.status !== 200) throw new Error(`exporting a bundle failed: ${res.status} ${res.text}`);
+      return JSON.parse(res.text);
     },
   };
 }
