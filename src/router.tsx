@@ -17,13 +17,6 @@ import { StatusPage } from "./pages/StatusPage";
 import { BellTestPage } from "./pages/BellTestPage";
 import { FringeScanPage } from "./pages/FringeScanPage";
 import { TrendsPage } from "./pages/TrendsPage";
-import { ComparePage } from "./pages/ComparePage";
-import { LabHomePage } from "./pages/LabHomePage";
-import { NewRunPage } from "./pages/NewRunPage";
-import { NewSessionPage } from "./pages/NewSessionPage";
-import { RunPage } from "./pages/RunPage";
-import { SessionPage } from "./pages/SessionPage";
-import { SourcesPage } from "./pages/SourcesPage";
 
 export const router = createBrowserRouter([
   {
@@ -41,14 +34,14 @@ export const router = createBrowserRouter([
       { path: "dev/outbox", element: <DevOutboxPage /> },
       { path: "labs/new", element: <NewLabPage /> },
       { path: "labs/:labId/members", element: <MembersPage /> },
-      // The notebook: sources, sessions, runs, state view, compare
-      { path: "labs/:labId", element: <LabHomePage /> },
-      { path: "labs/:labId/sources", element: <SourcesPage /> },
-      { path: "labs/:labId/sessions/new", element: <NewSessionPage /> },
-      { path: "labs/:labId/sessions/:sessionId", element: <SessionPage /> },
-      { path: "labs/:labId/sessions/:sessionId/runs/new", element: <NewRunPage /> },
-      { path: "labs/:labId/runs/:runId", element: <RunPage /> },
-      { path: "labs/:labId/compare", element: <ComparePage /> },
+      // The notebook: sources, sessions, runs, state view, compare (loaded when first visited)
+      { path: "labs/:labId", lazy: async () => ({ Component: (await import("./pages/LabHomePage")).LabHomePage }) },
+      { path: "labs/:labId/sources", lazy: async () => ({ Component: (await import("./pages/SourcesPage")).SourcesPage }) },
+      { path: "labs/:labId/sessions/new", lazy: async () => ({ Component: (await import("./pages/NewSessionPage")).NewSessionPage }) },
+      { path: "labs/:labId/sessions/:sessionId", lazy: async () => ({ Component: (await import("./pages/SessionPage")).SessionPage }) },
+      { path: "labs/:labId/sessions/:sessionId/runs/new", lazy: async () => ({ Component: (await import("./pages/NewRunPage")).NewRunPage }) },
+      { path: "labs/:labId/runs/:runId", lazy: async () => ({ Component: (await import("./pages/RunPage")).RunPage }) },
+      { path: "labs/:labId/compare", lazy: async () => ({ Component: (await import("./pages/ComparePage")).ComparePage }) },
       // Bell tests, fringe scans and trends
       { path: "labs/:labId/runs/:runId/bell-test", element: <BellTestPage /> },
       { path: "labs/:labId/runs/:runId/fringe-fit", element: <FringeScanPage /> },

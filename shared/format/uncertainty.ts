@@ -77,6 +77,24 @@ export function formatDecimal(value: number | null | undefined, maxDecimals = 2)
   return sign(s === "-0" ? "0" : s);
 }
 
+/** A number with exactly `decimals` decimals (zeros kept), e.g. eigenvalues "0.0003". */
+export function formatFixed(value: number | null | undefined, decimals: number): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return NOT_SHOWN;
+  return fixed(value, decimals);
+}
+
+/**
+ * A count: a whole number, digits grouped in threes by a thin space from 10 000 on (the SI
+ * style; four-digit numbers stay together), e.g. "7998", "12 345".
+ */
+export function formatCount(value: number | null | undefined): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return NOT_SHOWN;
+  const s = fixed(Math.round(value), 0);
+  const digits = s.replace(MINUS, "");
+  if (digits.length < 5) return s;
+  return (s.startsWith(MINUS) ? MINUS : "") + digits.replace(/\B(?=(\d{3})+(?!\d))/g, "\u2009");
+}
+
 /** The PDG rule: the kept digits of the uncertainty and the power of ten of its first digit. */
 function roundUncertainty(u: number): { mantissa: string; exponent: number } {
   let exponent = Math.floor(Math.log10(u));

@@ -18,6 +18,8 @@ export const BAR_HEIGHT = 2.2;
 const FOOTPRINT = 0.68;
 /** Bars thinner than this are still drawn, so every element can be hovered. */
 const MIN_HEIGHT = 0.015;
+/** Width / height of the default view of the scene, for framing it in narrow canvases. */
+const FRAME_ASPECT = 1.45;
 /** Scale ticks, as fractions of the shared scale. */
 const TICKS = [-1, -0.5, 0, 0.5, 1];
 
@@ -62,7 +64,7 @@ export function BarScene({ values, labels, scale, active, onHover, link, linkId 
               onPointerOut={() => onHover(null)}
             >
               <boxGeometry args={[FOOTPRINT, h, FOOTPRINT]} />
-              <meshLambertMaterial color={signColour(v)} emissive={isActive ? PALETTE.ink : "#000000"} emissiveIntensity={isActive ? 0.35 : 0} />
+              <meshLambertMaterial color={signColour(v)} emissive={isActive ? PALETTE.ink : "#000000"} emissiveIntensity={isActive ? 0.5 : 0} />
               <Edges color={isActive ? PALETTE.ink : PALETTE.paper} />
             </mesh>
           );
@@ -74,8 +76,19 @@ export function BarScene({ values, labels, scale, active, onHover, link, linkId 
       {labels.map((l, i) => (
         <TextSprite key={`r${l}`} text={l} position={[edge, 0, centre(i)]} color={PALETTE.ink} />
       ))}
+      {active && <FocusFrame x={centre(active.col)} z={centre(active.row)} />}
       <VerticalScale scale={scale} x={-d / 2 - 0.3} z={d / 2 + 0.3} />
     </>
+  );
+}
+
+/** A square frame on the zero plane around the pointed-at or focused element. */
+function FocusFrame({ x, z }: { x: number; z: number }) {
+  return (
+    <mesh position={[x, 0.01, z]} rotation={[-Math.PI / 2, 0, Math.PI / 4]}>
+      <ringGeometry args={[0.5, 0.62, 4, 1]} />
+      <meshBasicMaterial color={PALETTE.ink} />
+    </mesh>
   );
 }
 
@@ -106,6 +119,15 @@ function CameraRig({ link, linkId }: { link: ViewLink; linkId: string }) {
   const camera = useThree((s) => s.camera);
   const invalidate = useThree((s) => s.invalidate);
   const controls = useThree((s) => s.controls) as OrbitControlsImpl | null;
+  const aspect = useThree((s) => s.size.width / Math.max(1, s.size.height));
+
+  // The scene is about 1.4 times as wide as it is tall; in a narrower canvas, zoom out to keep it whole.
+  useEffect(() => {
+    if (!("isPerspectiveCamera" in camera)) return;
+    camera.zoom = Math.min(1, aspect / FRAME_ASPECT);
+    camera.updateProjectionMatrix();
+    invalidate();
+  }, [aspect, camera, invalidate]);
 
   useEffect(() => {
     const apply = () => {

@@ -39,7 +39,7 @@ function PartTable({ part, rho, sigma }: { part: Part; rho: ComplexMatrix; sigma
                 {labels[i]}
               </th>
               {row.map((v, j) => (
-                <td key={labels[j]} className={`num px-2 py-1 whitespace-nowrap ${v < 0 ? "text-negative" : ""}`}>
+                <td key={labels[j]} className="num px-2 py-1 whitespace-nowrap">
                   {formatWithUncertainty(v, sigma?.[part][i]?.[j]).text}
                 </td>
               ))}

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { formatDecimal, formatNumber, formatWithUncertainty } from "@shared/format/uncertainty";
+import { formatCount, formatDecimal, formatFixed, formatNumber, formatWithUncertainty } from "@shared/format/uncertainty";
 
 const text = (v: number | null | undefined, u?: number | null, unit?: string) => formatWithUncertainty(v, u, { unit }).text;
 
@@ -66,5 +66,19 @@ describe("formatNumber and formatDecimal", () => {
     expect(formatDecimal(-22.5)).toBe("−22.5");
     expect(formatDecimal(-0.001)).toBe("0");
     expect(formatDecimal(12.3456)).toBe("12.35");
+  });
+});
+
+describe("formatFixed and formatCount", () => {
+  it("keeps a fixed number of decimals, zeros included", () => {
+    expect(formatFixed(0.000324, 4)).toBe("0.0003");
+    expect(formatFixed(5e-19, 4)).toBe("0.0000");
+    expect(formatFixed(-0.00581, 4)).toBe("−0.0058");
+  });
+  it("writes counts as whole numbers, grouped by thin spaces from five digits on (SI style)", () => {
+    expect(formatCount(7998)).toBe("7998");
+    expect(formatCount(12345)).toBe("12\u2009345");
+    expect(formatCount(1234567.4)).toBe("1\u2009234\u2009567");
+    expect(formatCount(null)).toBe("—");
   });
 });

@@ -25,7 +25,7 @@ export function BellResults({ test, runName }: { test: BellTestDto; runName: str
     { key: "rows", header: "Rows", numeric: true, render: (r) => r.rows.map((i) => i + 1).join(", ") },
     { key: "e", header: "Measured E ± σ", numeric: true, render: (r) => <ValueWithError value={r.value} uncertainty={r.sigma} /> },
     { key: "pred", header: "Predicted by ρ", numeric: true, render: (r) => <ValueWithError value={r.predicted} significant={3} /> },
-    { key: "diff", header: "Difference / σ", numeric: true, render: (r) => (r.predicted === null ? "—" : formatWithUncertainty((r.value - r.predicted) / r.sigma, null, { significant: 2 }).text) },
+    { key: "diff", header: "(E − E_ρ) / σ_E", numeric: true, render: (r) => (r.predicted === null ? "—" : formatWithUncertainty((r.value - r.predicted) / r.sigma, null, { significant: 2 }).text) },
   ];
   const violated = test.significance !== null && test.significance > 0;
   return (

@@ -1,5 +1,5 @@
 import type { FieldArrayWithId, UseFormReturn } from "react-hook-form";
-import { formatDecimal, formatNumber } from "@shared/format/uncertainty";
+import { formatCount, formatDecimal, formatNumber } from "@shared/format/uncertainty";
 import { parseCell } from "./clipboard";
 import type { EntryChecks } from "./entryChecks";
 import type { ArmSetting, GridRow } from "./gridRows";
@@ -151,7 +151,7 @@ function rowNote(i: number, checks: EntryChecks, errors: RowErrors | undefined):
   if (first) return { tone: "error", text: first };
   if (checks.unreadable.includes(i)) return { tone: "error", text: "not a whole number" };
   const outlier = checks.outliers.find((o) => o.row === i);
-  if (outlier) return { tone: "caution", text: `far from the ${formatNumber(outlier.expected, 2)} the other rows imply` };
+  if (outlier) return { tone: "caution", text: `far from the ${formatCount(outlier.expected)} the other rows imply` };
   if (checks.zeros.includes(i)) return { tone: "caution", text: "zero — detector on?" };
   return null;
 }

@@ -1,4 +1,4 @@
-import { formatNumber } from "@shared/format/uncertainty";
+import { formatCount, formatNumber } from "@shared/format/uncertainty";
 import { DensityBars2D } from "../../plots/DensityBars2D";
 import { sharedScale } from "../../plots/densityModel";
 import type { BellTarget } from "@shared/schemas/sources";
@@ -66,7 +66,7 @@ function warningsOf(checks: EntryChecks, labels: string[]): { tone: "error" | "c
   for (const o of checks.outliers) {
     out.push({
       tone: "caution",
-      text: `${name(o.row)}: ${o.counts} counts, but the other rows imply about ${formatNumber(o.expected, 2)}. A typo, or a waveplate at the wrong angle?`,
+      text: `${name(o.row)}: ${o.counts} counts, but the other rows imply about ${formatCount(o.expected)}. A typo, or a waveplate at the wrong angle?`,
     });
   }
   if (checks.zeros.length) {

@@ -26,6 +26,7 @@ export function BackgroundControls({ value, onChange, sessionWindowNs }: { value
     <div className="space-y-3">
       <SegmentedToggle
         label="Background"
+        hideLabel
         value={value.background}
         onChange={(v) => (v === "rate" ? onChange({ background: "rate", backgroundRate: Number(rate) || 0, backgroundSigma: Number(sigma) || 0 }) : onChange(v === "accidentals" ? { background: "accidentals" } : { background: "none" }))}
         options={[

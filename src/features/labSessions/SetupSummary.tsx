@@ -1,5 +1,5 @@
 import type { LabSessionDto } from "@shared/schemas/labSessions";
-import { formatDecimal, formatNumber } from "@shared/format/uncertainty";
+import { formatDecimal } from "@shared/format/uncertainty";
 
 /** A session's setup at a glance. */
 export function SetupSummary({ session: s }: { session: LabSessionDto }) {
@@ -8,10 +8,10 @@ export function SetupSummary({ session: s }: { session: LabSessionDto }) {
     ["Source", s.source.name],
     ["Date", s.date],
     ["People", s.people.length ? s.people.join(", ") : "—"],
-    ["Pump", [s.pumpWavelengthNm !== null && `${formatNumber(s.pumpWavelengthNm, 4)} nm`, s.pumpPowerMw !== null && `${formatNumber(s.pumpPowerMw, 3)} mW`].filter(Boolean).join(", ") || "—"],
-    ["Crystal temperature", s.crystalTemperatureC !== null ? `${formatNumber(s.crystalTemperatureC, 4)} °C` : "—"],
+    ["Pump", [s.pumpWavelengthNm !== null && `${formatDecimal(s.pumpWavelengthNm, 3)} nm`, s.pumpPowerMw !== null && `${formatDecimal(s.pumpPowerMw, 3)} mW`].filter(Boolean).join(", ") || "—"],
+    ["Crystal temperature", s.crystalTemperatureC !== null ? `${formatDecimal(s.crystalTemperatureC, 3)} °C` : "—"],
     ["Detectors", s.detectors || "—"],
-    ["Coincidence window", s.coincidenceWindowNs !== null ? `${formatNumber(s.coincidenceWindowNs, 3)} ns` : "not set (no accidental subtraction)"],
+    ["Coincidence window", s.coincidenceWindowNs !== null ? `${formatDecimal(s.coincidenceWindowNs, 3)} ns` : "not set (no accidental subtraction)"],
     ["PBS ports counted", s.analyser.arms.map((a, i) => `${i === 0 ? "A" : "B"}: ${a.bothPorts ? "both" : "one"}`).join(", ")],
     [
       "Waveplates",

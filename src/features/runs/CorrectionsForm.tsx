@@ -46,44 +46,49 @@ export function CorrectionsForm({ labId, run, current, sessionWindowNs, onCreate
   });
   return (
     <form onSubmit={submit} noValidate className="space-y-3 text-sm">
-      <div className="grid gap-3 md:grid-cols-2">
-        <Field label="Method" error={e.method?.message}>
-          {(p) => (
-            <select {...register("method")} {...fieldProps(p)} className={inputClass}>
-              {(Object.keys(METHOD_NAME) as (keyof typeof METHOD_NAME)[]).map((m) => (
-                <option key={m} value={m}>
-                  {METHOD_NAME[m]}
-                </option>
-              ))}
-            </select>
-          )}
-        </Field>
-        <Field label="Monte Carlo samples" error={e.monteCarloSamples?.message} hint="0 skips the uncertainties; up to 10,000.">
-          {(p) => <input {...register("monteCarloSamples", { setValueAs: (v) => (typeof v === "string" ? parseCell(v) : v) })} {...fieldProps(p)} inputMode="numeric" className={`${inputClass} text-right`} />}
-        </Field>
+      <p className="text-ink-soft">The raw counts stay as they are; the new result is stored beside the earlier ones and shown at once.</p>
+      <div className="grid gap-4 lg:grid-cols-3">
+        <div className="space-y-3">
+          <Field label="Method" error={e.method?.message}>
+            {(p) => (
+              <select {...register("method")} {...fieldProps(p)} className={inputClass}>
+                {(Object.keys(METHOD_NAME) as (keyof typeof METHOD_NAME)[]).map((m) => (
+                  <option key={m} value={m}>
+                    {METHOD_NAME[m]}
+                  </option>
+                ))}
+              </select>
+            )}
+          </Field>
+          <Field label="Monte Carlo samples" error={e.monteCarloSamples?.message} hint="0 skips the uncertainties; up to 10,000.">
+            {(p) => <input {...register("monteCarloSamples", { setValueAs: (v) => (typeof v === "string" ? parseCell(v) : v) })} {...fieldProps(p)} inputMode="numeric" className={`${inputClass} text-right`} />}
+          </Field>
+        </div>
+        <fieldset className="rounded-md border border-paper-sunk p-3">
+          <legend className="px-1 font-bold">Accidental coincidences</legend>
+          <label className="flex items-center gap-2">
+            <input type="checkbox" {...register("corrections.accidentals")} disabled={!hasSingles} /> Subtract A = s<sub>a</sub>·s<sub>b</sub>·τ / t from every row
+          </label>
+          {!hasSingles && <p className="mt-1 text-ink-faint">Needs singles on every row; this run has none.</p>}
+          <Field label="Window τ (full width)" unit="ns" className="mt-2" error={e.corrections?.windowNs?.message} hint={sessionWindowNs !== null ? `Empty: the session's ${sessionWindowNs} ns.` : "The session has no window; give one here."}>
+            {(p) => <input {...register("corrections.windowNs", { setValueAs: optionalNumber })} {...fieldProps(p)} inputMode="decimal" className={`${inputClass} max-w-32 text-right`} />}
+          </Field>
+        </fieldset>
+        <div className="space-y-3">
+          <Field label="Relative detector-pair efficiencies" error={e.corrections?.efficiencies?.message ?? (e.corrections?.efficiencies as unknown as Record<number, { message?: string }> | undefined)?.[0]?.message} hint={`One number per row (${run.rows.length}), in row order, separated by commas or spaces. Empty: all 1.`}>
+            {(p) => <textarea {...register("corrections.efficiencies", { setValueAs: numberList })} {...fieldProps(p)} rows={2} className={inputClass} />}
+          </Field>
+          <Field label="Drift normalisation" error={e.corrections?.drift?.message}>
+            {(p) => (
+              <select {...register("corrections.drift")} {...fieldProps(p)} className={inputClass}>
+                <option value="none">None</option>
+                <option value="singles" disabled={!hasSingles}>By the summed singles</option>
+                <option value="monitor" disabled={!hasMonitor}>By the monitor column</option>
+              </select>
+            )}
+          </Field>
+        </div>
       </div>
-      <fieldset className="rounded-md border border-paper-sunk p-3">
-        <legend className="px-1 font-bold">Accidental coincidences</legend>
-        <label className="flex items-center gap-2">
-          <input type="checkbox" {...register("corrections.accidentals")} disabled={!hasSingles} /> Subtract A = s<sub>a</sub>·s<sub>b</sub>·τ / t from every row
-        </label>
-        {!hasSingles && <p className="mt-1 text-ink-faint">Needs singles on every row; this run has none.</p>}
-        <Field label="Window τ (full width)" unit="ns" className="mt-2" error={e.corrections?.windowNs?.message} hint={sessionWindowNs !== null ? `Empty: the session's ${sessionWindowNs} ns.` : "The session has no window; give one here."}>
-          {(p) => <input {...register("corrections.windowNs", { setValueAs: optionalNumber })} {...fieldProps(p)} inputMode="decimal" className={`${inputClass} max-w-32 text-right`} />}
-        </Field>
-      </fieldset>
-      <Field label="Relative detector-pair efficiencies" error={e.corrections?.efficiencies?.message ?? (e.corrections?.efficiencies as unknown as Record<number, { message?: string }> | undefined)?.[0]?.message} hint={`One number per row (${run.rows.length}), in row order, separated by commas or spaces. Empty: all 1.`}>
-        {(p) => <textarea {...register("corrections.efficiencies", { setValueAs: numberList })} {...fieldProps(p)} rows={2} className={inputClass} />}
-      </Field>
-      <Field label="Drift normalisation" error={e.corrections?.drift?.message}>
-        {(p) => (
-          <select {...register("corrections.drift")} {...fieldProps(p)} className={`${inputClass} max-w-64`}>
-            <option value="none">None</option>
-            <option value="singles" disabled={!hasSingles}>By the summed singles</option>
-            <option value="monitor" disabled={!hasMonitor}>By the monitor column</option>
-          </select>
-        )}
-      </Field>
       {create.isError && !(create.error instanceof ApiError && Object.keys(create.error.fieldMessages()).length) && (
         <Alert kind="error" title="Not reconstructed">
           {create.error.message} The stored results are unchanged.

@@ -1,4 +1,4 @@
-import { formatNumber } from "@shared/format/uncertainty";
+import { formatCount, formatNumber } from "@shared/format/uncertainty";
 import type { ReconstructionDto } from "@shared/schemas/reconstructions";
 import { METHOD_NAME } from "../stateView/meritRows";
 
@@ -6,7 +6,7 @@ import { METHOD_NAME } from "../stateView/meritRows";
 export function FitDetails({ reconstruction: r }: { reconstruction: ReconstructionDto }) {
   const items: [string, React.ReactNode][] = [
     ["Method", METHOD_NAME[r.method]],
-    ["Counts used", formatNumber(r.counts.total, 6)],
+    ["Counts used", formatCount(r.counts.total)],
     ["Log-likelihood L", r.fit.logLikelihood === null ? "—" : formatNumber(r.fit.logLikelihood, 7)],
     ["Iterations", r.fit.iterations ?? "—"],
     ["Converged", r.fit.converged === null ? "not iterative" : r.fit.converged ? `yes (tolerance ${formatNumber(r.fit.tolerance, 2)})` : "no"],

@@ -14,7 +14,7 @@ export function RawCounts({ run }: { run: RunDetailDto }) {
   const hasMonitor = run.rows.some((r) => r.monitor !== null);
   const intText = (x: number | null) => (x === null ? "—" : String(x));
   return (
-    <div className="space-y-3">
+    <div className="max-w-3xl space-y-3">
       <DataTable<Row>
         caption={`Counts as entered, revision ${run.revisionNumber}`}
         rows={run.rows.map((r, index) => ({ ...r, index }))}

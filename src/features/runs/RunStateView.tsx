@@ -11,6 +11,7 @@ import { METHOD_NAME } from "../stateView/meritRows";
 import { ScoreCard } from "../stateView/ScoreCard";
 import { Spectrum } from "../stateView/Spectrum";
 import { CorrectionsForm } from "./CorrectionsForm";
+import { KeyFigures } from "../stateView/KeyFigures";
 import { FitDetails } from "./FitDetails";
 import { ReconstructionHistory } from "./ReconstructionHistory";
 import { defaultReconstruction, describeCorrections, ofRevision, pickReconstruction } from "./reconstructionChoice";
@@ -43,40 +44,42 @@ export function RunStateView({ labId, run, sessionWindowNs }: { labId: string; r
           {selected.revisionNumber !== run.revisionNumber && <strong className="ml-1 text-caution">These are older counts than the current revision {run.revisionNumber}.</strong>}
         </p>
       </div>
-      <div className="grid gap-4 xl:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
-        <Panel title="Reconstructed state ρ">
-          <DensityPlots rho={selected.rho} sigma={selected.uncertainties?.rho} />
+      <KeyFigures reconstruction={selected} target={target} />
+      {!selected.physical && (
+        <p className="text-sm font-bold text-danger">This estimate is not a physical state (a negative eigenvalue); its figures are shown as computed, not corrected.</p>
+      )}
+      <Panel title="Reconstructed state ρ">
+        <DensityPlots rho={selected.rho} sigma={selected.uncertainties?.rho} />
+      </Panel>
+      <div className="grid gap-4 lg:grid-cols-3">
+        <Panel title="Scorecard">
+          <ScoreCard reconstruction={selected} target={target} />
         </Panel>
         <div className="space-y-4">
-          <Panel title="Scorecard">
-            <ScoreCard reconstruction={selected} target={target} />
-          </Panel>
           <Panel title="Things to check">
             <CheckList reconstruction={selected} />
           </Panel>
+          <Panel title="Spectrum of ρ">
+            <Spectrum eigenvalues={selected.eigenvalues} physical={selected.physical} />
+          </Panel>
         </div>
-      </div>
-      <div className="grid gap-4 lg:grid-cols-3">
-        <Panel title="Spectrum of ρ">
-          <Spectrum eigenvalues={selected.eigenvalues} physical={selected.physical} />
-        </Panel>
         <Panel title="How it was computed">
           <FitDetails reconstruction={selected} />
         </Panel>
-        <Panel title="Reconstruct again">
-          <CorrectionsForm
-            key={selected.id}
-            labId={labId}
-            run={run}
-            current={selected}
-            sessionWindowNs={sessionWindowNs}
-            onCreated={(r) => {
-              setJustMade(r);
-              setSelectedId(r.id);
-            }}
-          />
-        </Panel>
       </div>
+      <Panel title="Reconstruct again">
+        <CorrectionsForm
+          key={selected.id}
+          labId={labId}
+          run={run}
+          current={selected}
+          sessionWindowNs={sessionWindowNs}
+          onCreated={(r) => {
+            setJustMade(r);
+            setSelectedId(r.id);
+          }}
+        />
+      </Panel>
       <Panel title="Every reconstruction of this run">
         <ReconstructionHistory reconstructions={all} selectedId={selected.id} onSelect={setSelectedId} target={target} currentRevision={run.revisionNumber} />
       </Panel>

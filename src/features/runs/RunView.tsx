@@ -5,7 +5,7 @@ import { ButtonLink } from "../../components/Button";
 import { PageTitle } from "../../components/PageTitle";
 import { Panel } from "../../components/Panel";
 import { QueryState } from "../../components/QueryState";
-import { formatNumber } from "@shared/format/uncertainty";
+import { formatCount, formatDecimal } from "@shared/format/uncertainty";
 import { labPaths } from "../notebook/labPaths";
 import { RawCounts } from "./RawCounts";
 import { RunStateView } from "./RunStateView";
@@ -24,8 +24,8 @@ export function RunView({ labId, runId }: { labId: string; runId: string }) {
                 <Link className="font-bold text-petrol-700 underline" to={labPaths.session(labId, r.session.id)}>
                   {r.session.title}
                 </Link>{" "}
-                ({r.session.date}) · {r.source.name} · {r.rowCount} settings, {formatNumber(r.totalCounts, 6)} coincidences
-                {r.conditions.pumpPowerMw !== null && ` · pump ${formatNumber(r.conditions.pumpPowerMw, 3)} mW`}
+                ({r.session.date}) · {r.source.name} · {r.rowCount} settings, {formatCount(r.totalCounts)} coincidences
+                {r.conditions.pumpPowerMw !== null && ` · pump ${formatDecimal(r.conditions.pumpPowerMw, 3)} mW`}
               </>
             }
             actions={

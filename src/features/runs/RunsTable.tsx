@@ -1,7 +1,7 @@
 import { Link } from "react-router-dom";
 import type { RunDto } from "@shared/schemas/runs";
 import type { BellTarget } from "@shared/schemas/sources";
-import { formatNumber } from "@shared/format/uncertainty";
+import { formatDecimal } from "@shared/format/uncertainty";
 import { DataTable, type Column, type SortState } from "../../components/DataTable";
 import { ValueWithError } from "../../components/ValueWithError";
 import { labPaths } from "../notebook/labPaths";
@@ -27,8 +27,8 @@ export function RunsTable({ labId, runs, caption, sort, onSort, showSession = fa
       : []),
     { key: "name", header: "Run", sortKey: "name", render: (r) => <Link className="font-bold text-petrol-700 underline" to={labPaths.run(labId, r.id)}>{r.name}</Link> },
     ...(showSession ? [{ key: "session", header: "Session", render: (r: RunDto) => <Link className="text-petrol-700 underline" to={labPaths.session(labId, r.session.id)}>{r.session.title}</Link> }] : []),
-    { key: "kind", header: "Kind", sortKey: "kind", render: (r) => `${KIND[r.kind]}${r.kind === "tomography" ? `, ${r.rowCount} rows` : ""}` },
-    { key: "pump", header: "Pump (mW)", numeric: true, sortKey: "pumpPowerMw", render: (r) => formatNumber(r.conditions.pumpPowerMw, 3) },
+    { key: "kind", header: "Measurement", sortKey: "kind", render: (r) => (r.kind === "tomography" ? `Tomography, ${r.rowCount} settings` : KIND[r.kind]) },
+    { key: "pump", header: "Pump (mW)", numeric: true, sortKey: "pumpPowerMw", render: (r) => formatDecimal(r.conditions.pumpPowerMw, 3) },
     {
       key: "fidelity",
       header: "Fidelity",
@@ -46,7 +46,7 @@ export function RunsTable({ labId, runs, caption, sort, onSort, showSession = fa
     { key: "concurrence", header: "Concurrence", numeric: true, sortKey: "concurrence", render: (r) => (r.headline ? <ValueWithError value={r.headline.concurrence} uncertainty={r.headline.concurrenceUncertainty} /> : "—") },
     { key: "purity", header: "Purity", numeric: true, sortKey: "purity", render: (r) => (r.headline ? <ValueWithError value={r.headline.purity} uncertainty={r.headline.purityUncertainty} /> : "—") },
     { key: "chsh", header: "CHSH max", numeric: true, render: (r) => (r.headline ? <ValueWithError value={r.headline.chshMax} uncertainty={r.headline.chshMaxUncertainty} /> : "—") },
-    { key: "created", header: "Saved", sortKey: "createdAt", render: (r) => new Date(r.createdAt).toLocaleString(undefined, { dateStyle: "medium", timeStyle: "short" }) },
+    { key: "created", header: "Saved", sortKey: "createdAt", render: (r) => <span className="whitespace-nowrap">{new Date(r.createdAt).toLocaleString(undefined, { dateStyle: "medium", timeStyle: "short" })}</span> },
   ];
-  return <DataTable caption={caption} columns={columns} rows={runs} rowKey={(r) => r.id} sort={sort} onSort={onSort} empty={empty} />;
+  return <DataTable caption={caption} captionHidden columns={columns} rows={runs} rowKey={(r) => r.id} sort={sort} onSort={onSort} empty={empty} />;
 }

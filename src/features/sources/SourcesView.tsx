@@ -3,7 +3,7 @@ import { Link } from "react-router-dom";
 import { useLab } from "../../api/labs";
 import { useCreateSource, useSources } from "../../api/sources";
 import { DataTable, type SortState } from "../../components/DataTable";
-import { formatNumber } from "@shared/format/uncertainty";
+import { formatDecimal } from "@shared/format/uncertainty";
 import { PageTitle } from "../../components/PageTitle";
 import { Panel } from "../../components/Panel";
 import { EmptyState, QueryState } from "../../components/QueryState";
@@ -39,7 +39,7 @@ export function SourcesView({ labId }: { labId: string }) {
                     { key: "name", header: "Name", sortKey: "name", render: (s) => <span className="font-bold">{s.name}</span> },
                     { key: "target", header: "Target", render: (s) => BELL_SYMBOL[s.targetState] },
                     { key: "crystal", header: "Crystal", render: (s) => s.crystal || "—" },
-                    { key: "wl", header: "λ (nm)", numeric: true, render: (s) => formatNumber(s.wavelengthNm, 4) },
+                    { key: "wl", header: "λ (nm)", numeric: true, render: (s) => formatDecimal(s.wavelengthNm, 3) },
                     { key: "sessions", header: "Sessions", numeric: true, render: (s) => s.sessionCount },
                     {
                       key: "go",

@@ -46,8 +46,9 @@ function MeritLine({ row }: { row: MeritRow }) {
       <td className="num py-1.5 text-base">
         <ValueWithError value={row.value} uncertainty={row.uncertainty} unit={row.unit} />
         {row.companion && (
-          <span className="ml-3 text-sm text-ink-soft">
-            {row.companion.label} = <ValueWithError value={row.companion.value} uncertainty={row.companion.uncertainty} unit={row.companion.unit} />
+          <span className="block text-xs text-ink-soft">
+            at {row.companion.label} = <ValueWithError value={row.companion.value} uncertainty={row.companion.uncertainty} />
+            {row.companion.suffix}
           </span>
         )}
       </td>

@@ -1,4 +1,5 @@
-import { formatNumber } from "@shared/format/uncertainty";
+import { PHYSICAL_TOLERANCE } from "@shared/physics";
+import { formatFixed } from "@shared/format/uncertainty";
 import { PALETTE } from "../../plots/palette";
 
 /**
@@ -19,18 +20,21 @@ export function Spectrum({ eigenvalues, physical }: { eigenvalues: number[]; phy
         )}
       </p>
       <ol className="space-y-1" aria-label="Eigenvalues, largest first">
-        {eigenvalues.map((v, i) => (
+        {eigenvalues.map((v, i) => {
+          const negative = v < -PHYSICAL_TOLERANCE;
+          return (
           <li key={i} className="grid grid-cols-[2rem_5rem_1fr] items-center gap-2 text-sm">
             <span className="text-ink-faint">λ{subscript(i + 1)}</span>
-            <span className={`num ${v < 0 ? "font-bold text-danger" : ""}`}>{formatNumber(v, 3)}</span>
+            <span className={`num ${negative ? "font-bold text-danger" : ""}`}>{formatFixed(v, 4)}</span>
             <span className="relative h-3 rounded-sm bg-paper-sunk" aria-hidden="true">
               <span
                 className="absolute top-0 h-3 rounded-sm"
-                style={{ width: `${(Math.abs(v) / max) * 100}%`, background: v < 0 ? PALETTE.negative : PALETTE.positive }}
+                style={{ width: `${(Math.abs(v) / max) * 100}%`, background: negative ? PALETTE.negative : PALETTE.positive }}
               />
             </span>
           </li>
-        ))}
+          );
+        })}
       </ol>
     </div>
   );

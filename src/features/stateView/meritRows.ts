@@ -21,8 +21,8 @@ export interface MeritRow {
   value: number | null;
   uncertainty: number | null;
   unit?: string;
-  /** A companion figure shown beside the value, e.g. the optimal phase. */
-  companion?: { label: string; value: number | null; uncertainty: number | null; unit: string };
+  /** A companion figure shown beside the value, e.g. the optimal phase; `suffix` follows the number without a space (°). */
+  companion?: { label: string; value: number | null; uncertainty: number | null; suffix: string };
 }
 
 const pick = (m: Metrics, s: Metrics | null | undefined, key: MetricKey) => ({ value: m[key], uncertainty: s?.[key] ?? null });
@@ -31,7 +31,7 @@ const pick = (m: Metrics, s: Metrics | null | undefined, key: MetricKey) => ({ v
 export function meritRows(metrics: Metrics, sigma: Metrics | null | undefined, target: BellTarget): MeritRow[] {
   const family = target.startsWith("psi") ? "Psi" : "Phi";
   const phaseKey = `phase${family}Deg` as MetricKey;
-  const familyWords = family === "Psi" ? "(|HV⟩ + e^{iφ}|VH⟩)/√2" : "(|HH⟩ + e^{iφ}|VV⟩)/√2";
+  const familyWords = family === "Psi" ? "HV + e^iφ VH" : "HH + e^iφ VV";
   const rows: MeritRow[] = [
     { key: FIDELITY_KEY[target], label: `Fidelity to ${BELL_SYMBOL[target]}`, hint: "the source's target", ...pick(metrics, sigma, FIDELITY_KEY[target]) },
     {
@@ -39,11 +39,11 @@ export function meritRows(metrics: Metrics, sigma: Metrics | null | undefined, t
       label: "Fidelity, best phase",
       hint: `to ${familyWords}`,
       ...pick(metrics, sigma, `phaseFidelity${family}` as MetricKey),
-      companion: { label: "φ", unit: "°", ...pick(metrics, sigma, phaseKey) },
+      companion: { label: "φ", suffix: "°", ...pick(metrics, sigma, phaseKey) },
     },
     { key: "concurrence", label: "Concurrence", hint: "Wootters", ...pick(metrics, sigma, "concurrence") },
     { key: "tangle", label: "Tangle", hint: "C²", ...pick(metrics, sigma, "tangle") },
-    { key: "negativity", label: "Negativity", hint: "Σ|negative eigenvalues of ρ^{T_B}|", ...pick(metrics, sigma, "negativity") },
+    { key: "negativity", label: "Negativity", hint: "partial transpose", ...pick(metrics, sigma, "negativity") },
     { key: "purity", label: "Purity", hint: "Tr ρ²", ...pick(metrics, sigma, "purity") },
     { key: "linearEntropy", label: "Linear entropy", hint: "4/3 (1 − Tr ρ²)", ...pick(metrics, sigma, "linearEntropy") },
     { key: "vonNeumannEntropy", label: "Von Neumann entropy", hint: "bits", ...pick(metrics, sigma, "vonNeumannEntropy") },

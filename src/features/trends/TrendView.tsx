@@ -23,18 +23,29 @@ function seriesOf(runs: TrendRunDto[], x: TrendXKey, value: (r: TrendRunDto) => 
   return [...groups].map(([id, points]) => ({ label: titles.get(id)!, points }));
 }
 
+function merged(series: TrendSeries[], label: string, styleIndex: number, axis: "left" | "right" = "left"): TrendSeries[] {
+  const points = series.flatMap((s) => s.points.map((p) => ({ ...p, label: `${p.label} (${s.label})` })));
+  return points.length ? [{ label, points, styleIndex, axis }] : [];
+}
+
+/** Setup parameters as entered (no padding zeros): 5, 2.5, 31.2. */
+function plainNumber(v: number): string {
+  return String(Number(v.toPrecision(6))).replace("-", "−");
+}
+
 export function TrendView({ trend, figure, x }: { trend: TrendDto; figure: TrendFigureKey; x: TrendXKey }) {
   const xAxis = { label: X_LABEL[x], tickFormat: x === "recordedAt" ? timeTick : undefined };
   const figureSeries = seriesOf(trend.runs, x, (r) => r.figures[figure]);
-  const pairSeries = seriesOf(trend.runs, x, (r) => r.pairRate).map((s) => ({ ...s, label: `Pair rate — ${s.label}` }));
-  const accidentalSeries = seriesOf(trend.runs, x, (r) => (r.accidentalRate === null ? null : { value: r.accidentalRate, sigma: null })).map((s) => ({ ...s, label: `Accidentals — ${s.label}`, axis: "right" as const }));
+  // One series per quantity (not per session): the two rates are told apart by marker and axis.
+  const pairSeries = merged(seriesOf(trend.runs, x, (r) => r.pairRate), "Pair rate (left)", 0);
+  const accidentalSeries = merged(seriesOf(trend.runs, x, (r) => (r.accidentalRate === null ? null : { value: r.accidentalRate, sigma: null })), "Accidentals (right)", 1, "right");
   const plotted = figureSeries.reduce((n, s) => n + s.points.length, 0);
   const missingX = trend.runs.filter((r) => r.x[x] === null).length;
   const columns: Column<TrendRunDto>[] = [
     { key: "name", header: "Run", render: (r) => <span className="font-bold">{r.name}</span> },
     { key: "session", header: "Session", render: (r) => r.sessionTitle },
     { key: "kind", header: "Kind", render: (r) => r.kind },
-    { key: "x", header: X_LABEL[x], numeric: true, render: (r) => (r.x[x] === null ? "—" : x === "recordedAt" ? timeTick(r.x[x]!) : <ValueWithError value={r.x[x]} significant={4} />) },
+    { key: "x", header: X_LABEL[x], numeric: true, render: (r) => (r.x[x] === null ? "—" : x === "recordedAt" ? timeTick(r.x[x]!) : plainNumber(r.x[x]!)) },
     { key: "fig", header: FIGURE_LABEL[figure], numeric: true, render: (r) => <ValueWithError value={r.figures[figure]?.value} uncertainty={r.figures[figure]?.sigma} /> },
     { key: "pair", header: "Pair rate (/s)", numeric: true, render: (r) => <ValueWithError value={r.pairRate?.value} uncertainty={r.pairRate?.sigma} /> },
     { key: "acc", header: "Accidentals (/s)", numeric: true, render: (r) => <ValueWithError value={r.accidentalRate} significant={3} /> },

@@ -7,7 +7,7 @@ export const X_LABEL: Record<TrendXKey, string> = {
   compensatorTiltDeg: "Compensator tilt (°)",
   exposureSeconds: "Exposure per setting (s)",
   recordedAt: "Time recorded",
-  order: "Run number (in recording order)",
+  order: "Run number (sessions by date)",
 };
 
 export const FIGURE_LABEL: Record<TrendFigureKey, string> = {

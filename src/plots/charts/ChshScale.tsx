@@ -25,7 +25,7 @@ export function ChshScale({ marks }: { marks: ChshMark[] }) {
         <YAxis type="number" dataKey="row" domain={[-0.6, marks.length - 0.4]} ticks={marks.map((_, i) => i)} tickFormatter={(i: number) => marks[i]?.label ?? ""} reversed width={170} tick={AXIS_TICK} stroke={CHART.faint} />
         <ReferenceLine x={2} stroke={CHART.ink} strokeWidth={1.5} label={{ value: "local bound 2", position: "top", fill: CHART.ink, fontSize: 12 }} />
         <ReferenceLine x={TSIRELSON} stroke={CHART.caution} strokeDasharray="5 3" label={{ value: "2√2", position: "top", fill: CHART.caution, fontSize: 12 }} />
-        <Scatter data={data} dataKey="row" isAnimationActive={false} shape={(p: { cx?: number; cy?: number; payload?: { row: number } }) => <Marker cx={p.cx} cy={p.cy} style={seriesStyle(p.payload?.row ?? 0)} size={5.5} />}>
+        <Scatter data={data} dataKey="value" isAnimationActive={false} shape={(p: { cx?: number; cy?: number; payload?: { row: number } }) => <Marker cx={p.cx} cy={p.cy} style={seriesStyle(p.payload?.row ?? 0)} size={5.5} />}>
           <ErrorBar dataKey="sigma" direction="x" stroke={CHART.ink} width={5} />
         </Scatter>
       </ComposedChart>

@@ -1,7 +1,7 @@
 import { CartesianGrid, ComposedChart, ErrorBar, Line, ResponsiveContainer, Scatter, Tooltip, XAxis, YAxis } from "recharts";
 import { formatWithUncertainty } from "@shared/format/uncertainty";
 import { AXIS_LABEL, AXIS_TICK, CHART, seriesStyle } from "./chartTheme";
-import { Marker, SvgLegend } from "./SvgLegend";
+import { type LegendEntry, Marker, SvgLegend, legendWidth } from "./SvgLegend";
 
 export interface FringeSeries {
   label: string;
@@ -13,9 +13,10 @@ export interface FringeSeries {
 
 /** Coincidence rate against the scanned analyser angle: data with error bars and the fitted fringe. */
 export function FringeChart({ series, yLabel = "Coincidences per second" }: { series: FringeSeries[]; yLabel?: string }) {
+  const legend: LegendEntry[] = [...series.map((s, i) => ({ label: s.label, style: seriesStyle(i), kind: "both" as const })), { label: "markers: data ± σ; lines: fit", style: { colour: CHART.faint, shape: "circle" }, kind: "line" }];
   return (
     <ResponsiveContainer width="100%" height="100%">
-      <ComposedChart margin={{ top: 12, right: 20, bottom: 28, left: 24 }}>
+      <ComposedChart margin={{ top: 12, right: 20 + legendWidth(legend), bottom: 28, left: 24 }}>
         <CartesianGrid stroke={CHART.grid} />
         <XAxis
           type="number"
@@ -44,7 +45,7 @@ export function FringeChart({ series, yLabel = "Coincidences per second" }: { se
             <ErrorBar dataKey="sigma" direction="y" stroke={seriesStyle(i).colour} width={4} />
           </Scatter>
         ))}
-        <SvgLegend entries={series.flatMap((s, i) => [{ label: `${s.label}: data ± σ`, style: seriesStyle(i), kind: "marker" as const }, { label: `${s.label}: fit`, style: seriesStyle(i), kind: "line" as const }])} />
+        <SvgLegend entries={legend} />
       </ComposedChart>
     </ResponsiveContainer>
   );

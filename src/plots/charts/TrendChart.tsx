@@ -1,7 +1,7 @@
 import { CartesianGrid, ComposedChart, ErrorBar, ResponsiveContainer, Scatter, Tooltip, XAxis, YAxis } from "recharts";
 import { formatWithUncertainty } from "@shared/format/uncertainty";
 import { AXIS_LABEL, AXIS_TICK, CHART, seriesStyle } from "./chartTheme";
-import { Marker, SvgLegend } from "./SvgLegend";
+import { type LegendEntry, Marker, SvgLegend, legendWidth } from "./SvgLegend";
 
 export interface TrendPoint {
   x: number;
@@ -14,6 +14,8 @@ export interface TrendPoint {
 export interface TrendSeries {
   label: string;
   points: TrendPoint[];
+  /** Index into the series styles (default: the series' position). */
+  styleIndex?: number;
   /** Which y-axis (two when the quantities differ in size, e.g. pair rate and accidentals). */
   axis?: "left" | "right";
 }
@@ -26,10 +28,11 @@ export interface TrendAxis {
 
 /** A figure against a parameter: one marker per run with its error bar, one series per group. */
 export function TrendChart({ series, x, y, yRight }: { series: TrendSeries[]; x: TrendAxis; y: TrendAxis; yRight?: TrendAxis }) {
-  const showLegend = series.length > 1;
+  const style = (s: TrendSeries, i: number) => seriesStyle(s.styleIndex ?? i);
+  const legend: LegendEntry[] = series.length > 1 ? series.map((s, i) => ({ label: s.label, style: style(s, i), kind: "marker" })) : [];
   return (
     <ResponsiveContainer width="100%" height="100%">
-      <ComposedChart margin={{ top: 12, right: yRight ? 28 : 20, bottom: 28, left: 24 }}>
+      <ComposedChart margin={{ top: 12, right: (yRight ? 28 : 20) + legendWidth(legend), bottom: 28, left: 24 }}>
         <CartesianGrid stroke={CHART.grid} />
         <XAxis type="number" dataKey="x" domain={["auto", "auto"]} tick={AXIS_TICK} tickFormatter={x.tickFormat} stroke={CHART.faint} label={{ value: x.label, position: "insideBottom", offset: -16, ...AXIS_LABEL }} />
         <YAxis yAxisId="left" type="number" domain={["auto", "auto"]} tick={AXIS_TICK} tickFormatter={y.tickFormat} stroke={CHART.faint} label={{ value: y.label, angle: -90, position: "insideLeft", offset: -10, style: { textAnchor: "middle" }, ...AXIS_LABEL }} />
@@ -44,11 +47,11 @@ export function TrendChart({ series, x, y, yRight }: { series: TrendSeries[]; x:
           labelFormatter={() => ""}
         />
         {series.map((s, i) => (
-          <Scatter key={s.label} yAxisId={s.axis ?? "left"} data={s.points} dataKey="y" name={s.label} isAnimationActive={false} shape={(p: { cx?: number; cy?: number }) => <Marker cx={p.cx} cy={p.cy} style={seriesStyle(i)} />}>
-            <ErrorBar dataKey="sigma" direction="y" stroke={seriesStyle(i).colour} width={4} />
+          <Scatter key={s.label} yAxisId={s.axis ?? "left"} data={s.points} dataKey="y" name={s.label} isAnimationActive={false} shape={(p: { cx?: number; cy?: number }) => <Marker cx={p.cx} cy={p.cy} style={style(s, i)} />}>
+            <ErrorBar dataKey="sigma" direction="y" stroke={style(s, i).colour} width={4} />
           </Scatter>
         ))}
-        {showLegend && <SvgLegend entries={series.map((s, i) => ({ label: s.label, style: seriesStyle(i), kind: "marker" as const }))} />}
+        <SvgLegend entries={legend} />
       </ComposedChart>
     </ResponsiveContainer>
   );

@@ -15,13 +15,20 @@ export const CHART = {
 export interface SeriesStyle {
   colour: string;
   shape: "circle" | "square" | "triangle" | "diamond";
+  /** Outlined instead of filled: the second round of styles. */
+  hollow?: boolean;
 }
 
+/** Eight styles; neighbours differ in colour and in shape. */
 export const SERIES: SeriesStyle[] = [
   { colour: "#0d5c63", shape: "circle" },
   { colour: "#c8661a", shape: "square" },
   { colour: "#2b5fb0", shape: "triangle" },
   { colour: "#3d4a57", shape: "diamond" },
+  { colour: "#0d5c63", shape: "square", hollow: true },
+  { colour: "#c8661a", shape: "triangle", hollow: true },
+  { colour: "#2b5fb0", shape: "diamond", hollow: true },
+  { colour: "#3d4a57", shape: "circle", hollow: true },
 ];
 
 export const seriesStyle = (i: number): SeriesStyle => SERIES[i % SERIES.length];
