@@ -1,4 +1,5 @@
 import { createHash } from "node:crypto";
+import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { writeTomographyCsv } from "@shared/formats/tomographyCsv";
 import { LIMITS } from "@shared/limits";
@@ -48,6 +49,15 @@ describe("counts file upload", () => {
     expect(Buffer.compare(download.body as Buffer, bytes)).toBe(0);
     expect(download.headers["content-disposition"]).toContain('filename="power-5mW.csv"');
     await f.clients.outsider.get(a.downloadPath).expect(404);
+  });
+
+  it("accepts the example files and recognises their setting sets", async () => {
+    for (const [file, set, rows] of [["sagnac2-5mW-tomo16.csv", "tomo16", 16], ["sagnac2-5mW-tomo36.csv", "tomo36", 36]] as const) {
+      const bytes = readFileSync(new URL(`../../examples/tomography/${file}`, import.meta.url));
+      const run = RunDetailSchema.parse((await f.clients.member.post(url).attach("file", bytes, file).expect(201)).body);
+      expect([run.settingSetId, run.rowCount, run.attachments[0].sizeBytes]).toEqual([set, rows, bytes.length]);
+      expect(run.reconstructions.find((r) => r.method === "mle")!.metrics.fidelityPsiMinus!).toBeGreaterThan(0.9);
+    }
   });
 
   it("rejects a malformed file naming its line and column, and stores nothing", async () => {
