@@ -4,6 +4,7 @@
 import { EigenvalueDecomposition } from "ml-matrix";
 import { type CMatrix, conjugate, multiply, zeros } from "./linalg/complexMatrix";
 import { hermitianEigenvalues, hermitianFunction } from "./linalg/hermitianEigen";
+import { correlationTensor } from "./bell/prediction";
 
 /** σ_y ⊗ σ_y in the basis HH, HV, VH, VV (real: anti-diagonal −1, 1, 1, −1). */
 function yy(): CMatrix {
@@ -48,11 +49,13 @@ function woottersPhysical(rho: CMatrix): number[] {
 function woottersGeneral(rho: CMatrix): number[] {
   const z = multiply(rho, multiply(multiply(yy(), conjugate(rho)), yy()));
   const real: number[][] = Array.from({ length: 8 }, () => new Array(8).fill(0));
+  // Subnormal entries are flushed to zero: ml-matrix's EVD fails on them.
+  const flush = (x: number) => (Math.abs(x) < 1e-300 ? 0 : x);
   for (let i = 0; i < 4; i++) {
     for (let j = 0; j < 4; j++) {
-      real[i][j] = real[i + 4][j + 4] = z.re[i * 4 + j];
-      real[i + 4][j] = z.im[i * 4 + j];
-      real[i][j + 4] = -z.im[i * 4 + j];
+      real[i][j] = real[i + 4][j + 4] = flush(z.re[i * 4 + j]);
+      real[i + 4][j] = flush(z.im[i * 4 + j]);
+      real[i][j + 4] = -flush(z.im[i * 4 + j]);
     }
   }
   const parts = new EigenvalueDecomposition(real).realEigenvalues.sort((a, b) => b - a);
@@ -87,4 +90,18 @@ export function negativity(rho: CMatrix, dimA = 2): number {
   let s = 0;
   for (const l of hermitianEigenvalues(partialTranspose(rho, dimA))) if (l < 0) s -= l;
   return s;
+}
+
+/**
+ * The largest CHSH value over all analyser settings, 2√(m1 + m2), m1 ≥ m2 the two largest
+ * eigenvalues of TᵀT with T_ij = Tr(ρ σ_i⊗σ_j) (Horodecki, Horodecki, Horodecki, Phys. Lett.
+ * A 200, 340 (1995)). The 3×3 eigenproblem uses our Jacobi solver: ml-matrix's symmetric EVD
+ * throws on matrices with subnormal entries (seen on a product state |VH⟩ + 1e-322|VV⟩).
+ */
+export function chshMaximum(rho: CMatrix): number {
+  const t = correlationTensor(rho);
+  const m = zeros(3);
+  for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) for (let k = 0; k < 3; k++) m.re[i * 3 + j] += t[k][i] * t[k][j];
+  const ev = hermitianEigenvalues(m);
+  return 2 * Math.sqrt(Math.max(0, ev[0] + ev[1]));
 }

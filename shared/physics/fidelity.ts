@@ -4,6 +4,8 @@
  * - Mixed target: F = (Tr √(√σ ρ √σ))² (Uhlmann, Rep. Math. Phys. 9, 273 (1976); Jozsa 1994).
  *   We put the target's square root outside, so the formula stays defined when ρ is a
  *   non-physical estimate; negative eigenvalues of √σ ρ √σ are then skipped (flagged upstream).
+ *   Accuracy: ~1e-12 for full-rank states; for rank-deficient ones, eigenvalues at rounding
+ *   level are dropped (see below).
  * - Phase-optimised fidelity to (|a⟩ + e^{iφ}|b⟩)/√2: (ρ_aa + ρ_bb)/2 + |ρ_ab| at
  *   φ = −arg ρ_ab (follows from F = (ρ_aa + ρ_bb)/2 + Re(e^{iφ} ρ_ab)).
  */
@@ -16,11 +18,17 @@ export function pureStateFidelity(rho: CMatrix, psi: CVector): number {
   return expectation(rho, normalised(psi));
 }
 
+/**
+ * Eigenvalues of √σ ρ √σ below 4·d·ε·λ_max are rounding noise of zero (a rank-deficient
+ * state); left in, their square roots (~1e-8 each) would spoil the sum.
+ */
 export function uhlmannFidelity(rho: CMatrix, sigma: CMatrix): number {
   const root = hermitianFunction(hermitianPart(sigma), (l) => Math.sqrt(Math.max(0, l)));
   const inner = hermitianPart(multiply(multiply(root, rho), root));
+  const values = hermitianEigenvalues(inner);
+  const noise = 4 * rho.n * Number.EPSILON * Math.max(0, values[0]);
   let s = 0;
-  for (const l of hermitianEigenvalues(inner)) if (l > 0) s += Math.sqrt(l);
+  for (const l of values) if (l > noise) s += Math.sqrt(l);
   return s * s;
 }
 

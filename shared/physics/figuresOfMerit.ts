@@ -13,8 +13,8 @@ import type { DensityMatrix, Target } from "./types";
 import { type CMatrix, fromPlain, hermitianPart } from "./linalg/complexMatrix";
 import { hermitianEigenvalues } from "./linalg/hermitianEigen";
 import { fidelityToTarget, phaseOptimisedFidelity, type PhaseOptimisedFidelity } from "./fidelity";
-import { concurrence, negativity } from "./entanglement";
-import { correlationTensor, horodeckiMaximum, predictedChsh } from "./bell/prediction";
+import { chshMaximum, concurrence, negativity } from "./entanglement";
+import { predictedChsh } from "./bell/prediction";
 import { STANDARD_BELL_ANGLES, type BellAngles } from "./bell/angles";
 import { PHYSICAL_TOLERANCE } from "./tolerances";
 
@@ -55,7 +55,7 @@ export function figuresOfMerit(rho: DensityMatrix | CMatrix, target: Target | nu
     linearEntropy: (d / (d - 1)) * (1 - purity),
     vonNeumannEntropy: entropy + 0,
     negativity: twoQubit ? negativity(m) : null,
-    chshMax: twoQubit ? horodeckiMaximum(correlationTensor(m)) : null,
+    chshMax: twoQubit ? chshMaximum(m) : null,
     eigenvalues,
     physical,
     phaseOptimised: twoQubit ? bestPhaseFamily(m, target) : null,

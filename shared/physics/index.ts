@@ -32,7 +32,7 @@ export { PHYSICAL_TOLERANCE } from "./tolerances";
 // Figures of merit
 export { figuresOfMerit, chshFromRho, type FiguresOfMerit } from "./figuresOfMerit";
 export { fidelityToTarget, phaseOptimisedFidelity, pureStateFidelity, uhlmannFidelity, type PhaseOptimisedFidelity } from "./fidelity";
-export { concurrence, negativity, partialTranspose } from "./entanglement";
+export { chshMaximum, concurrence, negativity, partialTranspose } from "./entanglement";
 export { STANDARD_BELL_ANGLES, type BellAngles } from "./bell/angles";
 
 // Uncertainty and simulation

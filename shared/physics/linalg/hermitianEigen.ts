@@ -44,7 +44,12 @@ export function hermitianEigen(input: CMatrix): EigenDecomposition {
       for (let q = p + 1; q < n; q++) {
         const xr = ar[p * n + q];
         const xi = ai[p * n + q];
-        const r = Math.sqrt(xr * xr + xi * xi);
+        // |a_pq| scaled so that tiny entries (down to subnormals) keep a unit phase factor
+        const ax = Math.abs(xr);
+        const ay = Math.abs(xi);
+        const big = ax > ay ? ax : ay;
+        const ratio = big === 0 ? 0 : (ax > ay ? ay : ax) / big;
+        const r = big * Math.sqrt(1 + ratio * ratio);
         if (r === 0 || r < threshold) continue;
         const app = ar[p * n + p];
         const aqq = ar[q * n + q];
