@@ -8,7 +8,7 @@ export const attachmentsRouter = new ApiRouter("/labs");
 
 const AttachmentParamsSchema = z.object({ labId: UuidSchema("Lab id"), attachmentId: UuidSchema("Attachment id") });
 
-attachmentsRouter.get("/:labId/attachments/:attachmentId", { summary: "The bytes of an uploaded file, exactly as uploaded", auth: "user", tags: ["runs"], params: AttachmentParamsSchema }, async ({ user, params, res }) => {
+attachmentsRouter.get("/:labId/attachments/:attachmentId", { summary: "The bytes of an uploaded file, exactly as uploaded", auth: "user", tokenAccess: true, tags: ["runs"], params: AttachmentParamsSchema }, async ({ user, params, res }) => {
   await runPolicy.view(user, params.labId);
   const a = await readAttachment(params.labId, params.attachmentId);
   res.setHeader("Content-Type", a.contentType);

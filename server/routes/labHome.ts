@@ -9,7 +9,7 @@ import { labHome } from "../services/labHome";
 
 export const labHomeRouter = new ApiRouter("/labs");
 
-labHomeRouter.get("/:labId/home", { summary: "A lab's first page: totals, recent sessions and runs, best fidelity per source", auth: "user", tags: ["labs"], params: LabIdParamsSchema, response: LabHomeSchema }, async ({ user, params }) => {
+labHomeRouter.get("/:labId/home", { summary: "A lab's first page: totals, recent sessions and runs, best fidelity per source", auth: "user", tokenAccess: true, tags: ["labs"], params: LabIdParamsSchema, response: LabHomeSchema }, async ({ user, params }) => {
   const role = await runPolicy.view(user, params.labId);
   const home = await labHome(params.labId);
   return {

@@ -9,7 +9,7 @@ import { pageInfo } from "../services/listing";
 export const labSessionsRouter = new ApiRouter("/labs");
 const tags = ["sessions"];
 
-labSessionsRouter.get("/:labId/sessions", { summary: "Sessions of a lab (paged, sortable, filterable by source and date)", auth: "user", tags, params: LabIdParamsSchema, query: LabSessionListQuerySchema, response: LabSessionPageSchema }, async ({ user, params, query }) => {
+labSessionsRouter.get("/:labId/sessions", { summary: "Sessions of a lab (paged, sortable, filterable by source and date)", auth: "user", tokenAccess: true, tags, params: LabIdParamsSchema, query: LabSessionListQuerySchema, response: LabSessionPageSchema }, async ({ user, params, query }) => {
   const role = await labSessionPolicy.view(user, params.labId);
   const { items, total } = await listLabSessions(params.labId, query);
   return { data: items.map((i) => presentLabSession(i.labSession, i.runCount, role)), page: pageInfo(query.page, query.pageSize, total) };
@@ -21,7 +21,7 @@ labSessionsRouter.post("/:labId/sessions", { summary: "Start a session (the setu
   return presentLabSession(labSession, runCount, role);
 });
 
-labSessionsRouter.get("/:labId/sessions/:sessionId", { summary: "One session with its setup", auth: "user", tags, params: LabSessionIdParamsSchema, response: LabSessionSchema }, async ({ user, params }) => {
+labSessionsRouter.get("/:labId/sessions/:sessionId", { summary: "One session with its setup", auth: "user", tokenAccess: true, tags, params: LabSessionIdParamsSchema, response: LabSessionSchema }, async ({ user, params }) => {
   const role = await labSessionPolicy.view(user, params.labId);
   const { labSession, runCount } = await getLabSession(params.labId, params.sessionId);
   return presentLabSession(labSession, runCount, role);

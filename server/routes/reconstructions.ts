@@ -11,7 +11,7 @@ const tags = ["reconstructions"];
 
 reconstructionsRouter.post(
   "/:labId/runs/:runId/reconstructions",
-  { summary: "Reconstruct the run's current counts again with a method and corrections (older reconstructions are kept)", auth: "user", tags, params: RunIdParamsSchema, body: CreateReconstructionSchema, response: ReconstructionSchema, status: 201 },
+  { summary: "Reconstruct the run's current counts again with a method and corrections (older reconstructions are kept)", auth: "user", tokenAccess: true, tags, params: RunIdParamsSchema, body: CreateReconstructionSchema, response: ReconstructionSchema, status: 201 },
   async ({ user, params, body }) => {
     const role = await runPolicy.reconstruct(user, params.labId);
     const { reconstruction, revisionNumber } = await addReconstruction(user, params.labId, params.runId, body);
@@ -19,7 +19,7 @@ reconstructionsRouter.post(
   },
 );
 
-reconstructionsRouter.get("/:labId/reconstructions/:reconstructionId", { summary: "One reconstruction", auth: "user", tags, params: ReconstructionIdParamsSchema, response: ReconstructionSchema }, async ({ user, params }) => {
+reconstructionsRouter.get("/:labId/reconstructions/:reconstructionId", { summary: "One reconstruction", auth: "user", tokenAccess: true, tags, params: ReconstructionIdParamsSchema, response: ReconstructionSchema }, async ({ user, params }) => {
   const role = await runPolicy.view(user, params.labId);
   const { reconstruction, revisionNumber } = await findReconstruction(params.labId, params.reconstructionId);
   return presentReconstruction(reconstruction, revisionNumber, role);

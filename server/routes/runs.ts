@@ -17,7 +17,7 @@ const singleCountsFile = multer({ storage: multer.memoryStorage(), limits: { fil
 export const runsRouter = new ApiRouter("/labs");
 const tags = ["runs"];
 
-runsRouter.get("/:labId/runs", { summary: "Runs of a lab with their key figures (paged; filter by session, source, kind; sort by figures)", auth: "user", tags, params: LabIdParamsSchema, query: RunListQuerySchema, response: RunPageSchema }, async ({ user, params, query }) => {
+runsRouter.get("/:labId/runs", { summary: "Runs of a lab with their key figures (paged; filter by session, source, kind; sort by figures)", auth: "user", tokenAccess: true, tags, params: LabIdParamsSchema, query: RunListQuerySchema, response: RunPageSchema }, async ({ user, params, query }) => {
   const role = await runPolicy.view(user, params.labId);
   const { items, total } = await listRuns(params.labId, query);
   return { data: items.map((i) => presentRun(i, role)), page: pageInfo(query.page, query.pageSize, total) };
@@ -41,7 +41,7 @@ runsRouter.post(
   },
 );
 
-runsRouter.get("/:labId/runs/:runId", { summary: "A run: current rows, every revision, every reconstruction, attachments", auth: "user", tags, params: RunIdParamsSchema, response: RunDetailSchema }, async ({ user, params }) => {
+runsRouter.get("/:labId/runs/:runId", { summary: "A run: current rows, every revision, every reconstruction, attachments", auth: "user", tokenAccess: true, tags, params: RunIdParamsSchema, response: RunDetailSchema }, async ({ user, params }) => {
   const role = await runPolicy.view(user, params.labId);
   return presentRunDetail(await loadRunDetail(params.labId, params.runId), role);
 });

@@ -9,7 +9,7 @@ import { pageInfo } from "../services/listing";
 export const sourcesRouter = new ApiRouter("/labs");
 const tags = ["sources"];
 
-sourcesRouter.get("/:labId/sources", { summary: "Sources of a lab (paged, sortable, searchable)", auth: "user", tags, params: LabIdParamsSchema, query: SourceListQuerySchema, response: SourcePageSchema }, async ({ user, params, query }) => {
+sourcesRouter.get("/:labId/sources", { summary: "Sources of a lab (paged, sortable, searchable)", auth: "user", tokenAccess: true, tags, params: LabIdParamsSchema, query: SourceListQuerySchema, response: SourcePageSchema }, async ({ user, params, query }) => {
   const role = await sourcePolicy.view(user, params.labId);
   const { items, total } = await listSources(params.labId, query);
   return { data: items.map((i) => presentSource(i.source, i.sessionCount, role)), page: pageInfo(query.page, query.pageSize, total) };
@@ -21,7 +21,7 @@ sourcesRouter.post("/:labId/sources", { summary: "Add a source", auth: "user", t
   return presentSource(source, sessionCount, role);
 });
 
-sourcesRouter.get("/:labId/sources/:sourceId", { summary: "One source", auth: "user", tags, params: SourceIdParamsSchema, response: SourceSchema }, async ({ user, params }) => {
+sourcesRouter.get("/:labId/sources/:sourceId", { summary: "One source", auth: "user", tokenAccess: true, tags, params: SourceIdParamsSchema, response: SourceSchema }, async ({ user, params }) => {
   const role = await sourcePolicy.view(user, params.labId);
   const { source, sessionCount } = await getSource(params.labId, params.sourceId);
   return presentSource(source, sessionCount, role);

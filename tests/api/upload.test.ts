@@ -3,20 +3,25 @@ import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { writeTomographyCsv } from "@shared/formats/tomographyCsv";
 import { LIMITS } from "@shared/limits";
-import { RunDetailSchema } from "@shared/schemas/runs";
+import { CreateRunSchema, RunDetailSchema } from "@shared/schemas/runs";
+import type { User } from "../../server/entities/User";
+import { createRun } from "../../server/services/runs";
 import { Attachment, AuditEntry, Reconstruction, Run, RunRevision } from "../../server/entities/index";
 import { labWithRoles, type LabFixture } from "../support/clients";
 import { psiMinusRows, sessionIn } from "../support/notebook";
 import { startTestApp, type TestApp } from "../support/testApp";
 
+const asAuth = (u: User) => ({ id: u.id, email: u.email, displayName: u.displayName });
+
 describe("counts file upload", () => {
   let t: TestApp;
   let f: LabFixture;
   let url: string;
+  let sessionId: string;
   beforeAll(async () => {
     t = await startTestApp();
     f = await labWithRoles(t);
-    const { sessionId } = await sessionIn(f);
+    ({ sessionId } = await sessionIn(f));
     url = `/api/labs/${f.lab.id}/sessions/${sessionId}/runs/upload`;
   });
   afterAll(() => t.close());
@@ -83,6 +88,16 @@ describe("counts file upload", () => {
     const six = csv().split("\n").slice(0, 8).join("\n");
     const res = await f.clients.member.post(url).attach("file", Buffer.from(six), { filename: "six.csv" }).expect(400);
     expect(res.body.error.message).toMatch(/not informationally complete/);
+    expect(await stored()).toEqual(before);
+  });
+
+  it("rolls back run, revision and reconstructions when a later write of the same transaction fails", async () => {
+    const before = await stored();
+    const input = CreateRunSchema.parse({ settingSetId: "tomo16", name: "half-stored?", rows: psiMinusRows({ seed: 23 }), reconstruction: { monteCarloSamples: 0 } });
+    // The attachment is written after run, revision and reconstructions; a sha256 that breaks
+    // its CHECK constraint makes that last write fail inside the transaction.
+    const file = { fileName: "x.csv", contentType: "text/csv", content: Buffer.from("basis,counts\n"), sha256: "not-a-digest" };
+    await expect(createRun(asAuth(f.users.member), f.lab.id, sessionId, input, file)).rejects.toThrow(/attachments_sha256_check/);
     expect(await stored()).toEqual(before);
   });
 
