@@ -149,6 +149,22 @@ describe("password reset by e-mail", () => {
   });
 });
 
+describe("mail requests are limited", () => {
+  let t: TestApp;
+  beforeAll(async () => {
+    t = await startTestApp();
+  });
+  afterAll(() => t.close());
+
+  it("sends at most five reset mails per address per 15 minutes (429 after that)", async () => {
+    const user = await createUser(t, "Flooded");
+    for (let i = 0; i < 5; i++) await new TestClient(t).post("/api/auth/password-reset", { email: user.email }).expect(202);
+    const res = await new TestClient(t).post("/api/auth/password-reset", { email: user.email }).expect(429);
+    expect(res.body.error.message).toMatch(/Wait 15 minutes/);
+    await expect.poll(() => allMailTo(user.email).length).toBe(5);
+  });
+});
+
 describe("own account", () => {
   let t: TestApp;
   beforeAll(async () => {

@@ -93,6 +93,15 @@ describe("invitations by e-mail", () => {
     expect(bad.body.error.details.map((d: { field: string }) => d.field).sort()).toEqual(["email", "role"]);
   });
 
+  it("lets a link be used exactly once even when two people accept it at the same moment", async () => {
+    const { token } = await invite(newcomer(), "viewer");
+    const [x, y] = await Promise.all([
+      new TestClient(t).post("/api/invitations/accept", { token, displayName: "First", password: "first-to-the-link" }),
+      new TestClient(t).post("/api/invitations/accept", { token, displayName: "Second", password: "second-to-the-link" }),
+    ]);
+    expect([x.status, y.status].sort()).toEqual([200, 410]);
+  });
+
   it("answers an unknown link with 404", async () => {
     const res = await new TestClient(t).post("/api/invitations/preview", { token: "y".repeat(43) }).expect(404);
     expect(res.body.error.message).toMatch(/not valid/);

@@ -46,6 +46,17 @@ describe("members and roles", () => {
     expect(await t.dataSource.getRepository(LabMembership).countBy({ labId: f.lab.id, role: "owner" })).toBe(1);
   });
 
+  it("keeps an owner even when two owners step down at the same moment", async () => {
+    const g = await labWithRoles(t);
+    await g.clients.owner.patch(`/api/labs/${g.lab.id}/members/${g.users.member.id}`, { role: "owner" }).expect(200);
+    const [a, b] = await Promise.all([
+      g.clients.owner.patch(`/api/labs/${g.lab.id}/members/${g.users.owner.id}`, { role: "viewer" }),
+      g.clients.member.patch(`/api/labs/${g.lab.id}/members/${g.users.member.id}`, { role: "viewer" }),
+    ]);
+    expect([a.status, b.status].sort()).toEqual([200, 409]);
+    expect(await t.dataSource.getRepository(LabMembership).countBy({ labId: g.lab.id, role: "owner" })).toBe(1);
+  });
+
   it("lets a viewer leave by themselves but not remove others; owners remove people", async () => {
     const g = await labWithRoles(t);
     await g.clients.viewer.delete(`/api/labs/${g.lab.id}/members/${g.users.member.id}`).expect(403);
