@@ -10,10 +10,11 @@ import { tooManyRequests } from "./errors";
 const ip = (req: Request) => ipKeyGenerator(req.ip ?? "");
 const emailOf = (req: Request) => String((req.body as { email?: unknown } | undefined)?.email ?? "").trim().toLowerCase();
 
-function limiter(windowMinutes: number, limit: number, key: (req: Request) => string, what: string) {
+function limiter(windowMinutes: number, limit: number, key: (req: Request) => string, what: string, onlyFailures = false) {
   return rateLimit({
     windowMs: windowMinutes * 60_000,
     limit,
+    skipSuccessfulRequests: onlyFailures,
     standardHeaders: "draft-8",
     legacyHeaders: false,
     keyGenerator: key,
@@ -21,8 +22,8 @@ function limiter(windowMinutes: number, limit: number, key: (req: Request) => st
   });
 }
 
-/** Password guessing against one account: 10 tries per address per 15 minutes. */
-export const signInLimit = limiter(15, 10, (req) => `${ip(req)}|${emailOf(req)}`, "sign-in attempts for this e-mail address");
+/** Password guessing against one account: 10 failed tries per address per 15 minutes. */
+export const signInLimit = limiter(15, 10, (req) => `${ip(req)}|${emailOf(req)}`, "failed sign-in attempts for this e-mail address", true);
 
 /** New accounts: 20 per hour from one address. */
 export const signUpLimit = limiter(60, 20, ip, "sign-ups");
