@@ -26,7 +26,11 @@ export async function trendOf(labId: string, query: TrendQuery): Promise<TrendDt
   const em = db().manager;
   const { scope, sessions } = await scopeOf(labId, query);
   const sessionById = new Map(sessions.map((s) => [s.id, s]));
-  const runs = sessions.length ? await em.find(Run, { where: { labId, sessionId: In([...sessionById.keys()]) }, order: { createdAt: "ASC", id: "ASC" } }) : [];
+  const sessionOrder = new Map(sessions.map((s, i) => [s.id, i]));
+  // Sessions by date, then each session's runs in recording order.
+  const runs = (sessions.length ? await em.find(Run, { where: { labId, sessionId: In([...sessionById.keys()]) }, order: { createdAt: "ASC", id: "ASC" } }) : []).sort(
+    (a, b) => sessionOrder.get(a.sessionId)! - sessionOrder.get(b.sessionId)!,
+  );
   const revisions = await currentRevisions(runs);
   const reconstructions = await chosenReconstructions(runs, revisions, query);
   const trendRuns = runs.map((run, order) => {
@@ -109,11 +113,11 @@ async function scopeOf(labId: string, query: TrendQuery): Promise<{ scope: Scope
   if (query.sourceId) {
     const source = await em.findOne(Source, { where: { id: query.sourceId, labId } });
     if (!source) throw notFound("Source");
-    const sessions = await em.find(LabSession, { where: { labId, sourceId: source.id }, relations: { source: true }, order: { date: "ASC" } });
+    const sessions = await em.find(LabSession, { where: { labId, sourceId: source.id }, relations: { source: true }, order: { date: "ASC", createdAt: "ASC" } });
     return { scope: { kind: "source", id: source.id, title: source.name, targetState: source.targetState }, sessions };
   }
   const lab = await em.findOneByOrFail(Lab, { id: labId });
-  const sessions = await em.find(LabSession, { where: { labId }, relations: { source: true }, order: { date: "ASC" } });
+  const sessions = await em.find(LabSession, { where: { labId }, relations: { source: true }, order: { date: "ASC", createdAt: "ASC" } });
   return { scope: { kind: "lab", id: lab.id, title: lab.name, targetState: null }, sessions };
 }
 

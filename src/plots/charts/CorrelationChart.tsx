@@ -29,7 +29,7 @@ export function CorrelationChart({ points }: { points: CorrelationPoint[] }) {
         <ReferenceLine y={0} stroke={CHART.faint} />
         <Tooltip formatter={(value, name, item) => [formatWithUncertainty(Number(value), name === "measured" ? (item?.payload as CorrelationPoint).sigma : null).text, name]} labelFormatter={() => ""} />
         <Scatter data={data} dataKey="measured" name="measured" isAnimationActive={false} shape={(p: { cx?: number; cy?: number }) => <Marker cx={p.cx === undefined ? undefined : p.cx - 7} cy={p.cy} style={seriesStyle(0)} />}>
-          <ErrorBar dataKey="sigma" direction="y" stroke={seriesStyle(0).colour} width={4} />
+          <ErrorBar isAnimationActive={false} dataKey="sigma" direction="y" stroke={seriesStyle(0).colour} width={4} />
         </Scatter>
         {predicted.length > 0 && (
           <Scatter data={predicted} dataKey="predicted" name="predicted by ρ" isAnimationActive={false} shape={(p: { cx?: number; cy?: number }) => <Marker cx={p.cx === undefined ? undefined : p.cx + 7} cy={p.cy} style={seriesStyle(1)} />} />

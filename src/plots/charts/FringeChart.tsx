@@ -42,7 +42,7 @@ export function FringeChart({ series, yLabel = "Coincidences per second" }: { se
         ))}
         {series.map((s, i) => (
           <Scatter key={`data-${s.label}`} data={s.points} dataKey="rate" name={s.label} isAnimationActive={false} shape={(p: { cx?: number; cy?: number }) => <Marker cx={p.cx} cy={p.cy} style={seriesStyle(i)} />}>
-            <ErrorBar dataKey="sigma" direction="y" stroke={seriesStyle(i).colour} width={4} />
+            <ErrorBar isAnimationActive={false} dataKey="sigma" direction="y" stroke={seriesStyle(i).colour} width={4} />
           </Scatter>
         ))}
         <SvgLegend entries={legend} />

@@ -48,7 +48,7 @@ export function TrendChart({ series, x, y, yRight }: { series: TrendSeries[]; x:
         />
         {series.map((s, i) => (
           <Scatter key={s.label} yAxisId={s.axis ?? "left"} data={s.points} dataKey="y" name={s.label} isAnimationActive={false} shape={(p: { cx?: number; cy?: number }) => <Marker cx={p.cx} cy={p.cy} style={style(s, i)} />}>
-            <ErrorBar dataKey="sigma" direction="y" stroke={style(s, i).colour} width={4} />
+            <ErrorBar isAnimationActive={false} dataKey="sigma" direction="y" stroke={style(s, i).colour} width={4} />
           </Scatter>
         ))}
         <SvgLegend entries={legend} />
