@@ -39,6 +39,8 @@ const START_MIXING = 0.01;
 const FACE_THRESHOLD = 1e-9;
 /** Check the gap once a step lowered NLL by less than this multiple of the threshold. */
 const GAP_CHECK_FACTOR = 10;
+/** Steps lowering NLL by less than this multiple of the threshold have reached rounding level. */
+const STALL_FACTOR = 1e-6;
 
 export interface MleOptions {
   tolerance?: number;
@@ -113,19 +115,22 @@ function positiveSearch(
   for (let i = 0; i < d; i++) theta[i * i + 2 * i] = i < rank ? Math.sqrt(Math.max(values[i], floor)) : 0;
   let gap = Infinity;
   let lastDecrease = Infinity;
-  while (budget.left > 0) {
+  for (;;) {
     problem.evaluate(theta);
     // The certificate costs an eigen-decomposition; ask for it only once steps have become small.
+    // A failed certificate after steps at rounding level means this face is the wrong one.
     if (lastDecrease <= GAP_CHECK_FACTOR * threshold) {
       gap = problem.gap(rotatedInvSqrt);
-      if (gap <= threshold) break;
+      if (gap <= threshold || lastDecrease <= STALL_FACTOR * threshold) break;
     }
-    const step = newton.step(theta);
-    if (!step) break;
+    const step = budget.left > 0 ? newton.step(theta) : null;
+    if (!step) {
+      gap = problem.gap(rotatedInvSqrt);
+      break;
+    }
     budget.left--;
     lastDecrease = step.decrease;
   }
-  if (gap === Infinity) gap = problem.gap(rotatedInvSqrt);
   const sigma = multiply(multiply(u, sigmaFromParameters(theta, d)), adjoint(u));
   return { sigma, gap, rank };
 }
