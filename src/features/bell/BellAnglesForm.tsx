@@ -14,7 +14,7 @@ const FIELDS: { key: keyof BellAngles; label: string }[] = [
  * The four analyser angles of the CHSH sum, editable; beside each, the waveplate angles that
  * set it (QWP θ, HWP θ/2) and the orthogonal setting the other PBS port sees.
  */
-export function BellAnglesForm({ angles, onApply }: { angles: BellAngles; onApply: (angles: BellAngles | undefined) => void }) {
+export function BellAnglesForm({ angles, onApply, applyLabel = "Recompute at these angles" }: { angles: BellAngles; onApply: (angles: BellAngles | undefined) => void; applyLabel?: string }) {
   const [draft, setDraft] = useState<Record<keyof BellAngles, string>>(() => toDraft(angles));
   const [errors, setErrors] = useState<Partial<Record<keyof BellAngles, string>>>({});
   const apply = (e: React.FormEvent) => {
@@ -59,7 +59,7 @@ export function BellAnglesForm({ angles, onApply }: { angles: BellAngles; onAppl
         })}
       </div>
       <div className="mt-3 flex flex-wrap gap-2">
-        <Button type="submit">Recompute at these angles</Button>
+        <Button type="submit">{applyLabel}</Button>
         <Button variant="secondary" onClick={reset}>
           Standard angles (0°, 45°, 22.5°, 67.5°)
         </Button>
