@@ -14,9 +14,6 @@ import { VerifyEmailPage } from "./pages/VerifyEmailPage";
 import { HomeGate } from "./features/labs/HomeGate";
 import { NotFoundPage } from "./pages/NotFoundPage";
 import { StatusPage } from "./pages/StatusPage";
-import { BellTestPage } from "./pages/BellTestPage";
-import { FringeScanPage } from "./pages/FringeScanPage";
-import { TrendsPage } from "./pages/TrendsPage";
 
 export const router = createBrowserRouter([
   {
@@ -43,9 +40,11 @@ export const router = createBrowserRouter([
       { path: "labs/:labId/runs/:runId", lazy: async () => ({ Component: (await import("./pages/RunPage")).RunPage }) },
       { path: "labs/:labId/compare", lazy: async () => ({ Component: (await import("./pages/ComparePage")).ComparePage }) },
       // Bell tests, fringe scans and trends
-      { path: "labs/:labId/runs/:runId/bell-test", element: <BellTestPage /> },
-      { path: "labs/:labId/runs/:runId/fringe-fit", element: <FringeScanPage /> },
-      { path: "labs/:labId/trends", element: <TrendsPage /> },
+      { path: "labs/:labId/runs/:runId/bell-test", lazy: async () => ({ Component: (await import("./pages/BellTestPage")).BellTestPage }) },
+      { path: "labs/:labId/runs/:runId/fringe-fit", lazy: async () => ({ Component: (await import("./pages/FringeScanPage")).FringeScanPage }) },
+      { path: "labs/:labId/sessions/:sessionId/bell-test/new", lazy: async () => ({ Component: (await import("./pages/NewBellTestPage")).NewBellTestPage }) },
+      { path: "labs/:labId/sessions/:sessionId/fringe-scan/new", lazy: async () => ({ Component: (await import("./pages/NewFringeScanPage")).NewFringeScanPage }) },
+      { path: "labs/:labId/trends", lazy: async () => ({ Component: (await import("./pages/TrendsPage")).TrendsPage }) },
       { path: "status", element: <StatusPage /> },
       { path: "*", element: <NotFoundPage /> },
     ],
