@@ -91,9 +91,9 @@ export function FringeEntryForm({ labId, sessionId }: { labId: string; sessionId
       <div className="grid gap-4 lg:grid-cols-2">
         {scans.map((scan, i) => (
           <Panel key={i} title={`Scan ${i + 1}`} actions={scans.length > 1 ? <Button variant="quiet" size="sm" onClick={() => setScans(scans.filter((_, k) => k !== i))}>Remove</Button> : undefined}>
-            <Field label="Arm A fixed at" unit="°" error={parsed[i].fixedError} hint={FIXED_CHOICES.map((c) => c.label).join(", ")}>
+            <Field className="max-w-56" label="Arm A fixed at" unit="°" error={parsed[i].fixedError} hint={FIXED_CHOICES.map((c) => c.label).join(", ")}>
               {({ id, describedBy, invalid }) => (
-                <input id={id} inputMode="decimal" list="fringe-fixed-angles" className={`${inputClass} w-32 text-right`} aria-describedby={describedBy} aria-invalid={invalid} value={scan.fixedDeg} onChange={(e) => update(i, { fixedDeg: e.target.value })} />
+                <input id={id} inputMode="decimal" list="fringe-fixed-angles" className={`${inputClass} text-right`} aria-describedby={describedBy} aria-invalid={invalid} value={scan.fixedDeg} onChange={(e) => update(i, { fixedDeg: e.target.value })} />
               )}
             </Field>
             <table className="mt-3 text-sm">
