@@ -18,6 +18,10 @@ const EnvSchema = z.object({
   LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).default("info"),
   RHOMB_STATIC_DIR: z.string().default("dist/client"),
   RHOMB_IN_PROCESS_WORKERS: z.coerce.number().int().min(0).max(16).default(1),
+  /** Batch-file jobs one `npm run worker` process runs at once (its Monte Carlo threads are shared). */
+  RHOMB_WORKER_CONCURRENCY: z.coerce.number().int().min(1).max(32).default(4),
+  /** A job still running after this long counts as lost (e.g. its worker died) and is retried. */
+  RHOMB_JOB_TIMEOUT_SECONDS: z.coerce.number().int().min(2).max(3600).default(300),
 });
 
 export type Config = z.infer<typeof EnvSchema> & { publicUrl: string; sessionSecret: string };

@@ -3,6 +3,8 @@ import { createApp } from "./app";
 import { config } from "./config";
 import { createDataSource, setDataSource } from "./db/dataSource";
 import { logger } from "./logger";
+import { jobQueue, stopJobQueue } from "./jobs/queue";
+import { startBatchWorkers } from "./jobs/workers";
 
 /** Starts the web process: database, HTTP server, and a clean shutdown on SIGINT/SIGTERM. */
 async function main(): Promise<void> {
@@ -10,6 +12,9 @@ async function main(): Promise<void> {
   const dataSource = createDataSource(cfg.DATABASE_URL, { applicationName: "rhomb-web" });
   await dataSource.initialize();
   setDataSource(dataSource);
+  // The queue starts with the web process (it queues batch files); RHOMB_IN_PROCESS_WORKERS=0 leaves the jobs to `npm run worker`.
+  await jobQueue();
+  if (cfg.RHOMB_IN_PROCESS_WORKERS > 0) await startBatchWorkers(cfg.RHOMB_IN_PROCESS_WORKERS);
   const app = createApp({ config: cfg, dataSource });
   const server = app.listen(cfg.PORT, cfg.HOST, () => {
     logger.info({ url: cfg.publicUrl }, "Rhomb is listening");
@@ -24,7 +29,9 @@ async function main(): Promise<void> {
     if (stopping) return;
     stopping = true;
     logger.info({ signal }, "shutting down");
-    server.close(() => void dataSource.destroy().finally(() => process.exit(0)));
+    // Running jobs get 4 s to finish; unfinished ones go back to the queue for another worker.
+    const jobsStopped = stopJobQueue(4000).catch((err) => logger.error({ err }, "job queue did not stop cleanly"));
+    server.close(() => void jobsStopped.then(() => dataSource.destroy()).finally(() => process.exit(0)));
     setTimeout(() => process.exit(0), 5000).unref();
   };
   process.on("SIGINT", () => stop("SIGINT"));

@@ -25,9 +25,6 @@ export class Batch {
   @Column({ type: "uuid", name: "token_id", nullable: true })
   tokenId: string | null;
 
-  @Column({ type: "boolean" })
-  accidentals: boolean;
-
   @Column({ type: "integer", name: "file_count" })
   fileCount: number;
 

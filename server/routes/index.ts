@@ -1,8 +1,10 @@
 import type { ApiRouter } from "../http/endpoint";
 import { accountRouter } from "./account";
+import { acquisitionRouter } from "./acquisition";
 import { apiTokensRouter } from "./apiTokens";
 import { attachmentsRouter } from "./attachments";
 import { authRouter } from "./auth";
+import { batchesRouter } from "./batches";
 import { bellRouter } from "./bell";
 import { compareRouter } from "./compare";
 import { devOutboxRouter } from "./devOutbox";
@@ -23,4 +25,4 @@ import { exportsRouter } from "./exports";
 import { bundlesRouter } from "./bundles";
 
 /** Every API router, mounted under /api by app.ts. Add new resources here. */
-export const apiRouters: ApiRouter[] = [openApiRouter, authRouter, labsRouter, sourcesRouter, labSessionsRouter, runsRouter, reconstructionsRouter, attachmentsRouter, compareRouter, labHomeRouter, accountRouter, membersRouter, labInvitationsRouter, invitationsRouter, devOutboxRouter, bellRouter, fringeRouter, trendsRouter, apiTokensRouter, sharesRouter, sharedViewRouter, guestSharesRouter, exportsRouter, bundlesRouter];
+export const apiRouters: ApiRouter[] = [openApiRouter, authRouter, labsRouter, sourcesRouter, labSessionsRouter, runsRouter, reconstructionsRouter, attachmentsRouter, compareRouter, labHomeRouter, accountRouter, membersRouter, labInvitationsRouter, invitationsRouter, devOutboxRouter, bellRouter, fringeRouter, trendsRouter, apiTokensRouter, batchesRouter, acquisitionRouter, sharesRouter, sharedViewRouter, guestSharesRouter, exportsRouter, bundlesRouter];

@@ -9,7 +9,7 @@
  * - One column per setting, named by its label (1–4 letters from H V D A R L, photon A first),
  *   holding that setting's coincidence counts. Optional per setting: `<label>_singles_a`,
  *   `<label>_singles_b` (both or neither) and `<label>_monitor`.
- * - Optional per run: `run` (its name; default "<file> line <n>"), `set` (a standard set id;
+ * - Optional per run: `run` (its name; default "<file> row <n>"), `set` (a standard set id;
  *   default the set whose labels the columns name exactly, else "custom"), `seconds` (exposure
  *   of every setting, default 1), `pump_mw`, `crystal_c`, `tilt_deg` (conditions) and `notes`.
  * - Column names are case-insensitive; unknown or repeated columns are refused, not ignored.
@@ -20,6 +20,7 @@
 import Papa from "papaparse";
 import { LIMITS } from "../limits";
 import type { CreateRun } from "../schemas/runs";
+import type { CountsRow } from "../physics/types";
 import { inferSettingSetId, RunFileError, validateRun, type RunFileOptions } from "./runJson";
 
 const RUN_FIELDS = { run: "name", set: "settingSetId", seconds: "seconds", pump_mw: "pumpPowerMw", crystal_c: "crystalTemperatureC", tilt_deg: "compensatorTiltDeg", notes: "notes" } as const;
@@ -73,6 +74,45 @@ export function sweepLineAsCsv(file: SweepFile, record: Record_): string {
   return `${Papa.unparse([file.header.written, record.fields], { newline: "\n" })}\n`;
 }
 
+export interface SweepRun {
+  name: string;
+  pumpPowerMw?: number | null;
+  crystalTemperatureC?: number | null;
+  compensatorTiltDeg?: number | null;
+  /** Exposure of every setting, seconds (written only when not 1). */
+  seconds?: number;
+  /** Label rows in the same settings order for every run. */
+  rows: CountsRow[];
+}
+
+/** Writes runs as a sweep CSV: one line per run, one column per setting (+ singles when given). */
+export function writeSweepCsv(runs: readonly SweepRun[], comments: readonly string[] = []): string {
+  const labels = runs[0].rows.map((r) => {
+    if (typeof r.setting !== "string") throw new Error("only label settings can be written to a sweep CSV");
+    return r.setting;
+  });
+  const all = runs.flatMap((r) => r.rows);
+  const singles = all.some((r) => r.singlesA !== undefined || r.singlesB !== undefined);
+  const optional = (["pumpPowerMw", "crystalTemperatureC", "compensatorTiltDeg"] as const).filter((k) => runs.some((r) => r[k] !== undefined && r[k] !== null));
+  const seconds = runs.some((r) => (r.seconds ?? 1) !== 1);
+  const header = ["run", ...(seconds ? ["seconds"] : []), ...optional.map((k) => COLUMN_OF[k]), ...labels, ...(singles ? labels.flatMap((l) => [`${l}_singles_a`, `${l}_singles_b`]) : [])];
+  const lines = runs.map((run) => {
+    const at = new Map(run.rows.map((r) => [r.setting as string, r]));
+    const row = (l: string) => at.get(l) ?? (() => { throw new Error(`run "${run.name}" has no ${l} row`); })();
+    return [
+      run.name,
+      ...(seconds ? [run.seconds ?? 1] : []),
+      ...optional.map((k) => run[k] ?? ""),
+      ...labels.map((l) => row(l).counts),
+      ...(singles ? labels.flatMap((l) => [row(l).singlesA ?? "", row(l).singlesB ?? ""]) : []),
+    ];
+  });
+  const body = Papa.unparse([header, ...lines], { newline: "\n" });
+  return `${comments.map((c) => `# ${c}\n`).join("")}${body}\n`;
+}
+
+const COLUMN_OF = { pumpPowerMw: "pump_mw", crystalTemperatureC: "crystal_c", compensatorTiltDeg: "tilt_deg" } as const;
+
 /** Every run of a sweep file; each bad line is its own error, the others still parse. */
 export function parseSweepCsv(text: string, options: RunFileOptions & { firstLine?: number } = {}): Array<{ line: number; run: CreateRun } | { line: number; error: RunFileError }> {
   const file = readSweepCsv(text);
@@ -109,7 +149,7 @@ function sweepRun(header: SweepHeader, record: Record_, options: RunFileOptions)
     for (const c of PER_SETTING) if (has(`${key}_${c}`)) row[ROW_KEY[c]] = number(`${key}_${c}`, c !== "monitor");
     return row;
   });
-  const lineName = options.fallbackName ? `${options.fallbackName} line ${record.line}` : `line ${record.line}`;
+  const lineName = options.fallbackName ? `${options.fallbackName} row ${record.line}` : `row ${record.line}`;
   const input = {
     kind: "tomography",
     name: cell("run") || lineName,
@@ -119,11 +159,11 @@ function sweepRun(header: SweepHeader, record: Record_, options: RunFileOptions)
     rows,
     ...(options.reconstruction && { reconstruction: options.reconstruction }),
   };
-  return validateRun(input, (path) => ({ row: record.line, column: columnOf(path, labels) }));
+  return validateRun(input, (path) => ({ row: record.line, column: sweepColumnOf(path, labels) }));
 }
 
 /** Where a zod path into the run sits in the sweep layout. */
-function columnOf(path: PropertyKey[], labels: string[]): string | null {
+export function sweepColumnOf(path: PropertyKey[], labels: readonly string[]): string | null {
   if (path[0] === "rows" && typeof path[1] === "number") {
     const label = labels[path[1]];
     const key = path[2];

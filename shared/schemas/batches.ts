@@ -19,17 +19,15 @@ export type BatchFileFormat = z.infer<typeof BatchFileFormatSchema>;
 
 export const BatchIdParamsSchema = z.object({ labId: UuidSchema("Lab id"), batchId: UuidSchema("Batch id") });
 
-const checkbox = z
-  .union([z.boolean(), z.enum(["true", "false", "on", "1", "0"])], "Accidentals is true or false.")
-  .transform((v) => v === true || v === "true" || v === "on" || v === "1");
-
-/** Form fields beside the files of a batch upload (multipart/form-data, field "files"). */
-export const CreateBatchFieldsSchema = z.object({
-  sessionId: UuidSchema("Session"),
-  /** Subtract accidentals in every run whose file does not choose (needs singles and the session's window). */
-  accidentals: checkbox.default(false),
+/**
+ * The multipart body of a batch upload into POST /labs/:labId/sessions/:sessionId/batches: one
+ * or more run files under any field name (our client and CLI use "files"). Runs get the
+ * reconstructions of any saved run (linear and maximum likelihood, 200 Monte Carlo samples); a
+ * one-run JSON file may choose its own ("reconstruction").
+ */
+export const BatchUploadSchema = z.object({
+  files: z.unknown().optional().describe("Run files: one-run CSV or JSON, sweep CSV, or .zip archives of them"),
 });
-export type CreateBatchFields = z.infer<typeof CreateBatchFieldsSchema>;
 
 export const BatchListQuerySchema = z.object({ sessionId: UuidSchema("Session").optional() });
 
@@ -62,7 +60,6 @@ export const BatchSummarySchema = z.object({
   labId: z.string().uuid(),
   session: z.object({ id: z.string().uuid(), title: z.string() }),
   origin: z.enum(["browser", "token"]),
-  accidentals: z.boolean(),
   fileCount: z.number().int(),
   counts: BatchCountsSchema,
   /** True when every file is stored, failed or a duplicate. */
@@ -78,12 +75,11 @@ export type BatchDto = z.infer<typeof BatchSchema>;
 
 export const BatchListSchema = z.object({ data: z.array(BatchSummarySchema) });
 
-/** The acquisition API: one run posted as JSON (the one-run JSON layout) into a session. */
-export const AcquisitionSchema = z.object({
-  sessionId: UuidSchema("Session"),
-  /** The run, in the one-run JSON layout (README "File formats"); validated like a file. */
-  run: z.record(z.string(), z.unknown(), "Give the run as a JSON object (the one-run JSON layout)."),
-});
+/**
+ * The acquisition API's body: one run in the one-run JSON layout (README "File formats"),
+ * validated exactly like such a file so errors name row and key alike.
+ */
+export const AcquisitionSchema = z.record(z.string(), z.unknown(), "Send the run as one JSON object (the one-run JSON layout).");
 export type Acquisition = z.infer<typeof AcquisitionSchema>;
 
 export const AcquisitionResultSchema = z.object({

@@ -24,6 +24,7 @@ import { randomUUID } from "node:crypto";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { endpointRegistry } from "../../server/http/endpoint";
 import { ApiToken } from "../../server/entities/ApiToken";
+import { Batch } from "../../server/entities/Batch";
 import { EmailToken } from "../../server/entities/EmailToken";
 import { Invitation } from "../../server/entities/Invitation";
 import { LabMembership } from "../../server/entities/LabMembership";
@@ -177,6 +178,23 @@ const ROWS: Record<string, Row> = {
   "GET /api/tokens": { expect: SIGNED_IN(), request: () => ({ path: "/api/tokens" }) },
   "GET /api/tokens/current": { expect: SIGNED_IN(), request: () => ({ path: "/api/tokens/current" }) },
   "POST /api/tokens": { expect: LAB_WRITE(201), request: (c) => ({ path: "/api/tokens", body: { name: "Matrix token", labId: c.lab } }) },
+  "POST /api/labs/:labId/sessions/:sessionId/batches": {
+    expect: LAB_WRITE(202),
+    request: async (c) => ({ path: `/api/labs/${c.lab}/sessions/${await c.labSession()}/batches`, file: { name: "matrix.csv", content: writeTomographyCsv(psiMinusRows()) } }),
+  },
+  "GET /api/labs/:labId/batches": { expect: LAB_READ(), request: (c) => ({ path: `/api/labs/${c.lab}/batches` }) },
+  "GET /api/labs/:labId/batches/:batchId": {
+    expect: LAB_READ(),
+    request: async (c) => {
+      const batch = await c.t.dataSource.getRepository(Batch).save({ labId: c.lab, sessionId: await c.labSession(), origin: "browser", tokenId: null, fileCount: 1, createdById: c.f.users.owner.id });
+      return { path: `/api/labs/${c.lab}/batches/${batch.id}` };
+    },
+  },
+  // Each caller posts a different run: a repeat of the same one would (rightly) answer 200 "duplicate".
+  "POST /api/labs/:labId/sessions/:sessionId/acquisitions": {
+    expect: LAB_WRITE(201),
+    request: async (c, caller) => ({ path: `/api/labs/${c.lab}/sessions/${await c.labSession()}/acquisitions`, body: { name: `Acquired by ${caller}`, settingSetId: "tomo16", rows: psiMinusRows({ seed: 40 + caller.length }), reconstruction: { monteCarloSamples: 0 } } }),
+  },
   // Everyone revokes only their own token: the outsider (and anonymous) aim at the owner's.
   "DELETE /api/tokens/:tokenId": {
     expect: { anonymous: 401, outsider: 404, viewer: 200, member: 200, owner: 200 },

@@ -16,7 +16,6 @@ export class Batches1796172782745 implements MigrationInterface {
         session_id uuid NOT NULL,
         origin text NOT NULL CHECK (origin IN ('browser', 'token')),
         token_id uuid REFERENCES api_tokens(id) ON DELETE SET NULL,
-        accidentals boolean NOT NULL DEFAULT false,
         file_count integer NOT NULL CHECK (file_count >= 1),
         created_by_id uuid REFERENCES users(id) ON DELETE SET NULL,
         created_at timestamptz NOT NULL DEFAULT now(),

@@ -1,0 +1,65 @@
+import type { BatchFileStatus } from "@shared/schemas/batches";
+import type { FileIssue } from "@shared/formats/runJson";
+import { db } from "../db/dataSource";
+import type { Batch } from "../entities/Batch";
+import type { BatchFile } from "../entities/BatchFile";
+
+/**
+ * Holds a transaction-level advisory lock on (lab, content SHA-256) while `work` runs on other
+ * connections. The lock's transaction does nothing else; when it ends (or its connection dies
+ * with a crashed worker) the lock is gone, so no crash can leave it held.
+ */
+export async function withContentLock<T>(labId: string, sha256: string, work: () => Promise<T>): Promise<T> {
+  const runner = db().createQueryRunner();
+  await runner.connect();
+  try {
+    await runner.startTransaction();
+    await runner.query("SELECT pg_advisory_xact_lock(hashtextextended($1, 0))", [`rhomb.batch-content:${labId}:${sha256}`]);
+    try {
+      return await work();
+    } finally {
+      await runner.commitTransaction().catch(() => undefined);
+    }
+  } finally {
+    await runner.release();
+  }
+}
+
+/**
+ * A run of this lab whose stored file has this content, if any. `ours` when it must be this
+ * file's own earlier attempt — created after the file was first picked up, in its session, and
+ * claimed by no other batch file — which crashed between storing the run and saying so.
+ */
+export async function claimedRunWithContent(file: BatchFile, batch: Batch): Promise<{ runId: string; runName: string; ours: boolean } | null> {
+  const [row] = await db().query(
+    `SELECT r.id, r.name,
+            NOT EXISTS (SELECT 1 FROM batch_files o WHERE o.run_id = r.id AND o.id <> $3)
+              AND r.session_id = $4 AND r.created_at >= $5 AS ours
+       FROM attachments a JOIN runs r ON r.id = a.run_id
+      WHERE a.lab_id = $1 AND a.sha256 = $2
+      ORDER BY r.created_at LIMIT 1`,
+    [file.labId, file.sha256, file.id, batch.sessionId, file.startedAt],
+  );
+  return row ? { runId: row.id, runName: row.name, ours: row.ours } : null;
+}
+
+type Outcome =
+  | { status: Extract<BatchFileStatus, "stored">; runId: string }
+  | { status: Extract<BatchFileStatus, "duplicate">; duplicateOfRunId: string; message: string }
+  | { status: Extract<BatchFileStatus, "failed">; issues: FileIssue[]; message: string };
+
+/** Finishes a file that is still queued or processing (a finished file never changes again). */
+export async function markFile(id: string, outcome: Outcome): Promise<void> {
+  await db().query(
+    `UPDATE batch_files SET status = $2, run_id = $3, duplicate_of_run_id = $4, message = $5, issues = $6::jsonb, finished_at = now()
+      WHERE id = $1 AND status IN ('queued', 'processing')`,
+    [
+      id,
+      outcome.status,
+      outcome.status === "stored" ? outcome.runId : null,
+      outcome.status === "duplicate" ? outcome.duplicateOfRunId : null,
+      outcome.status === "stored" ? null : outcome.message,
+      JSON.stringify(outcome.status === "failed" ? outcome.issues : []),
+    ],
+  );
+}
