@@ -22,6 +22,7 @@ function useNav(): NavItem[] {
     { to: `/labs/${labId}`, label: "Lab home", end: true },
     { to: `/labs/${labId}/sources`, label: "Sources" },
     { to: `/labs/${labId}/compare`, label: "Compare" },
+    { to: `/labs/${labId}/trends`, label: "Trends" },
     { to: `/labs/${labId}/members`, label: "People" },
     ...NAV.filter((n) => n.to !== "/"),
   ];
