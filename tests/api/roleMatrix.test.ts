@@ -32,8 +32,7 @@ import { Share } from "../../server/entities/Share";
 import { User } from "../../server/entities/User";
 import { newLinkToken } from "../../server/services/linkTokens";
 import { TEST_PASSWORD, createUser, labWithRoles, type LabFixture, type TestClient } from "../support/clients";
-import { psiMinusRows } from "../support/notebook";
-import { writeTomographyCsv } from "@shared/formats/tomographyCsv";
+import { psiMinusCsv, psiMinusRows } from "../support/notebook";
 import { STANDARD_BELL_ANGLES, bellTestSettings, fringeScanSettings } from "@shared/physics/bell";
 import { startTestApp, type TestApp } from "../support/testApp";
 
@@ -153,7 +152,7 @@ const ROWS: Record<string, Row> = {
   },
   "POST /api/labs/:labId/sessions/:sessionId/runs/upload": {
     expect: LAB_WRITE(201),
-    request: async (c) => ({ path: `/api/labs/${c.lab}/sessions/${await c.labSession()}/runs/upload`, file: { name: "matrix.csv", content: writeTomographyCsv(psiMinusRows()) } }),
+    request: async (c) => ({ path: `/api/labs/${c.lab}/sessions/${await c.labSession()}/runs/upload`, file: { name: "matrix.csv", content: psiMinusCsv() } }),
   },
   "GET /api/labs/:labId/attachments/:attachmentId": { expect: LAB_READ(), request: async (c) => ({ path: `/api/labs/${c.lab}/attachments/${await c.attachment()}` }) },
   "GET /api/labs/:labId/runs/:runId": { expect: LAB_READ(), request: async (c) => ({ path: `/api/labs/${c.lab}/runs/${(await c.run()).id}` }) },
@@ -180,7 +179,7 @@ const ROWS: Record<string, Row> = {
   "POST /api/tokens": { expect: LAB_WRITE(201), request: (c) => ({ path: "/api/tokens", body: { name: "Matrix token", labId: c.lab } }) },
   "POST /api/labs/:labId/sessions/:sessionId/batches": {
     expect: LAB_WRITE(202),
-    request: async (c) => ({ path: `/api/labs/${c.lab}/sessions/${await c.labSession()}/batches`, file: { name: "matrix.csv", content: writeTomographyCsv(psiMinusRows()) } }),
+    request: async (c) => ({ path: `/api/labs/${c.lab}/sessions/${await c.labSession()}/batches`, file: { name: "matrix.csv", content: psiMinusCsv() } }),
   },
   "GET /api/labs/:labId/batches": { expect: LAB_READ(), request: (c) => ({ path: `/api/labs/${c.lab}/batches` }) },
   "GET /api/labs/:labId/batches/:batchId": {
@@ -242,7 +241,7 @@ function makeCtx(t: TestApp, f: LabFixture): Ctx {
   const run = once(() => newRun(1));
   const secondRun = once(() => newRun(2));
   const attachment = once(async () => {
-    const res = await owner.post(`/api/labs/${lab}/sessions/${await labSession()}/runs/upload`).attach("file", Buffer.from(writeTomographyCsv(psiMinusRows({ seed: 3 }))), "matrix.csv");
+    const res = await owner.post(`/api/labs/${lab}/sessions/${await labSession()}/runs/upload`).attach("file", Buffer.from(psiMinusCsv({ seed: 3 })), "matrix.csv");
     await created(res, "an uploaded run");
     return res.body.attachments[0].id as string;
   });

@@ -1,14 +1,13 @@
 import { createHash } from "node:crypto";
 import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { writeTomographyCsv } from "@shared/formats/tomographyCsv";
 import { LIMITS } from "@shared/limits";
 import { CreateRunSchema, RunDetailSchema } from "@shared/schemas/runs";
 import type { User } from "../../server/entities/User";
 import { createRun } from "../../server/services/runs";
 import { Attachment, AuditEntry, Reconstruction, Run, RunRevision } from "../../server/entities/index";
 import { labWithRoles, type LabFixture } from "../support/clients";
-import { psiMinusRows, sessionIn } from "../support/notebook";
+import { psiMinusCsv, psiMinusRows, sessionIn } from "../support/notebook";
 import { startTestApp, type TestApp } from "../support/testApp";
 
 const asAuth = (u: User) => ({ id: u.id, email: u.email, displayName: u.displayName });
@@ -26,7 +25,7 @@ describe("counts file upload", () => {
   });
   afterAll(() => t.close());
 
-  const csv = (seed = 21) => writeTomographyCsv(psiMinusRows({ seed }), ["sweep point 5 mW"]);
+  const csv = (seed = 21) => psiMinusCsv({ seed }, ["sweep point 5 mW"]);
   const stored = async () => ({
     runs: await t.dataSource.getRepository(Run).count(),
     revisions: await t.dataSource.getRepository(RunRevision).count(),

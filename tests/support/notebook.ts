@@ -1,5 +1,5 @@
-import { simulateCounts } from "@shared/physics/simulateCounts";
-import { standardSet } from "@shared/physics/settings";
+import { writeTomographyCsv } from "@shared/formats/tomographyCsv";
+import { simulateCounts, standardSet } from "@shared/physics";
 import type { CountsRowInput } from "@shared/schemas/runs";
 import { wernerLike } from "../../server/db/seeds/demoStates";
 import type { LabFixture } from "./clients";
@@ -26,4 +26,10 @@ export function psiMinusRows(options: { p?: number; pairRate?: number; seed?: nu
     ...(options.singles !== false && { singles: { rateA: 60_000, rateB: 60_000, windowNs: 3 } }),
   });
   return rows.map((r) => ({ setting: r.setting as string, counts: r.counts, seconds: r.seconds ?? 1, singlesA: r.singlesA ?? null, singlesB: r.singlesB ?? null }));
+}
+
+/** The same rows as our counts CSV (shared/formats/tomographyCsv.ts), for upload tests. */
+export function psiMinusCsv(options: Parameters<typeof psiMinusRows>[0] = {}, comments: string[] = []): string {
+  const rows = psiMinusRows(options).map((r) => ({ setting: r.setting as string, counts: r.counts, seconds: r.seconds, singlesA: r.singlesA ?? undefined, singlesB: r.singlesB ?? undefined }));
+  return writeTomographyCsv(rows, comments);
 }
