@@ -7,6 +7,7 @@ type Command = { run(args: string[]): Promise<number> };
 const COMMANDS: Record<string, { summary: string; load: () => Promise<Command> }> = {
   reconstruct: { summary: "reconstruct FILE.csv --method mle|linear|projected [--json] …", load: () => import("./reconstruct") },
   bench: { summary: "bench FILE.csv --repeat N [--json]", load: () => import("./bench") },
+  upload: { summary: "upload --session ID [--url URL] [--token TOKEN] [--no-wait] FILE… (run files, sweeps or zips, as one batch)", load: () => import("./upload") },
 };
 
 function usage(): string {

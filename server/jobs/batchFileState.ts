@@ -30,17 +30,17 @@ export async function withContentLock<T>(labId: string, sha256: string, work: ()
  * file's own earlier attempt — created after the file was first picked up, in its session, and
  * claimed by no other batch file — which crashed between storing the run and saying so.
  */
-export async function claimedRunWithContent(file: BatchFile, batch: Batch): Promise<{ runId: string; runName: string; ours: boolean } | null> {
+export async function claimedRunWithContent(file: BatchFile, batch: Batch): Promise<{ runId: string; runName: string; sessionTitle: string; ours: boolean } | null> {
   const [row] = await db().query(
-    `SELECT r.id, r.name,
+    `SELECT r.id, r.name, s.title,
             NOT EXISTS (SELECT 1 FROM batch_files o WHERE o.run_id = r.id AND o.id <> $3)
               AND r.session_id = $4 AND r.created_at >= $5 AS ours
-       FROM attachments a JOIN runs r ON r.id = a.run_id
+       FROM attachments a JOIN runs r ON r.id = a.run_id JOIN lab_sessions s ON s.id = r.session_id
       WHERE a.lab_id = $1 AND a.sha256 = $2
       ORDER BY r.created_at LIMIT 1`,
     [file.labId, file.sha256, file.id, batch.sessionId, file.startedAt],
   );
-  return row ? { runId: row.id, runName: row.name, ours: row.ours } : null;
+  return row ? { runId: row.id, runName: row.name, sessionTitle: row.title, ours: row.ours } : null;
 }
 
 type Outcome =

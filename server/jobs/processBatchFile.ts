@@ -33,7 +33,7 @@ export async function processBatchFile(batchFileId: string, options: { finalAtte
       const batch = await db().getRepository(Batch).findOneByOrFail({ id: file.batchId });
       const existing = await claimedRunWithContent(file, batch);
       if (existing) {
-        await (existing.ours ? markFile(file.id, { status: "stored", runId: existing.runId }) : markFile(file.id, { status: "duplicate", duplicateOfRunId: existing.runId, message: `${file.fileName}: already stored as run “${existing.runName}” — not stored again` }));
+        await (existing.ours ? markFile(file.id, { status: "stored", runId: existing.runId }) : markFile(file.id, { status: "duplicate", duplicateOfRunId: existing.runId, message: `${file.fileName}: already stored as run “${existing.runName}” in session “${existing.sessionTitle}” — not stored again` }));
         return;
       }
       const user = await uploader(batch);

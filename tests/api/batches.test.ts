@@ -102,7 +102,7 @@ describe("batch uploads", () => {
     expect(await runsInSession()).toBe(before);
     const copy = batch.files.find((x) => x.fileName === "2mW-copy.csv")!;
     expect(copy.duplicateOf?.name).toBe("2mW");
-    expect(copy.message).toBe("2mW-copy.csv: already stored as run “2mW” — not stored again");
+    expect(copy.message).toBe("2mW-copy.csv: already stored as run “2mW” in session “Test session” — not stored again");
   });
 
   it("refuses what is over the limits with a message that says which limit", async () => {
