@@ -6,9 +6,10 @@ import { QueryState } from "../components/QueryState";
 import { RequireSignIn } from "../features/account/RequireSignIn";
 import { BellAnglesForm } from "../features/bell/BellAnglesForm";
 import { BellResults } from "../features/bell/BellResults";
+import { ComparisonPicker } from "../features/bell/ComparisonPicker";
 import { useBellTest } from "../features/bell/useBellTest";
 
-/** The angles live in the address (?a=&a2=&b=&b2=), so a link reproduces exactly this analysis. */
+/** The angles and the compared reconstruction live in the address (?a=&a2=&b=&b2=&rec=), so a link reproduces exactly this analysis. */
 function anglesFromSearch(search: URLSearchParams): BellAngles | undefined {
   const values = ["a", "a2", "b", "b2"].map((k) => search.get(k));
   if (values.some((v) => v === null || v === "" || !Number.isFinite(Number(v)))) return undefined;
@@ -28,9 +29,18 @@ export function BellTestPage() {
 function BellTest({ labId, runId }: { labId: string; runId: string }) {
   const [search, setSearch] = useSearchParams();
   const angles = anglesFromSearch(search);
-  const test = useBellTest(labId, runId, angles);
-  const apply = (next: BellAngles | undefined) =>
-    setSearch(next ? { a: String(next.aDeg), a2: String(next.aPrimeDeg), b: String(next.bDeg), b2: String(next.bPrimeDeg) } : {}, { replace: true });
+  const reconstructionId = search.get("rec") ?? undefined;
+  const test = useBellTest(labId, runId, angles, reconstructionId);
+  const update = (changes: Record<string, string | undefined>) => {
+    const next = new URLSearchParams(search);
+    for (const [k, v] of Object.entries(changes)) {
+      if (v === undefined) next.delete(k);
+      else next.set(k, v);
+    }
+    setSearch(next, { replace: true });
+  };
+  const apply = (a: BellAngles | undefined) =>
+    update(a ? { a: String(a.aDeg), a2: String(a.aPrimeDeg), b: String(a.bDeg), b2: String(a.bPrimeDeg) } : { a: undefined, a2: undefined, b: undefined, b2: undefined });
   return (
     <>
       <p className="mb-1 text-sm">
@@ -43,6 +53,7 @@ function BellTest({ labId, runId }: { labId: string; runId: string }) {
           <>
             <PageTitle subtitle="CHSH from the measured coincidences, beside what the session's reconstructed state predicts.">{`Bell test — ${t.runName}`}</PageTitle>
             <div className="space-y-4">
+              <ComparisonPicker labId={labId} sessionId={t.sessionId} value={reconstructionId} onChange={(rec) => update({ rec })} />
               <BellResults test={t} runName={t.runName} />
               <Panel title="Analyser angles">
                 <BellAnglesForm key={JSON.stringify(t.angles)} angles={t.angles} onApply={apply} />
