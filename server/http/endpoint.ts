@@ -48,7 +48,8 @@ export interface RegisteredEndpoint extends EndpointSpec<ZodType | undefined, Zo
 export const endpointRegistry: RegisteredEndpoint[] = [];
 
 export class ApiRouter {
-  readonly router = Router();
+  // mergeParams: a prefix with parameters ("/labs/:labId/sources") reaches the handlers.
+  readonly router = Router({ mergeParams: true });
 
   /** `prefix` is the mount point under /api, e.g. "/labs". */
   constructor(readonly prefix: string) {}
