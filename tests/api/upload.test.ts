@@ -52,6 +52,7 @@ describe("counts file upload", () => {
     }).expect(200);
     expect(Buffer.compare(download.body as Buffer, bytes)).toBe(0);
     expect(download.headers["content-disposition"]).toContain('filename="power-5mW.csv"');
+    expect(download.headers["content-type"]).toMatch(/^text\/csv/);
     await f.clients.outsider.get(a.downloadPath).expect(404);
   });
 
@@ -62,6 +63,14 @@ describe("counts file upload", () => {
       expect([run.settingSetId, run.rowCount, run.attachments[0].sizeBytes]).toEqual([set, rows, bytes.length]);
       expect(run.reconstructions.find((r) => r.method === "mle")!.metrics.fidelityPsiMinus!).toBeGreaterThan(0.9);
     }
+  });
+
+  it("serves a file that claimed to be HTML as plain bytes, never as a page", async () => {
+    const run = RunDetailSchema.parse((await f.clients.member.post(url).attach("file", Buffer.from(csv(22)), { filename: "sneaky.html", contentType: "text/html" }).expect(201)).body);
+    expect(run.attachments[0].contentType).toBe("text/html");
+    const res = await f.clients.viewer.get(run.attachments[0].downloadPath).expect(200);
+    expect(res.headers["content-type"]).toBe("application/octet-stream");
+    expect(res.headers["content-disposition"]).toMatch(/^attachment;/);
   });
 
   it("rejects a malformed file naming its line and column, and stores nothing", async () => {
