@@ -42,6 +42,19 @@ export default defineConfig({
           fileParallelism: false,
         },
       },
+      {
+        extends: true,
+        test: {
+          // Browser journeys against the real server (playwright-core + Debian chromium); scripts/test.sh runs them last.
+          name: "e2e",
+          include: ["tests/e2e/**/*.test.ts"],
+          environment: "node",
+          globalSetup: ["tests/e2e/support/globalSetup.ts"],
+          testTimeout: 120000,
+          hookTimeout: 300000,
+          fileParallelism: false,
+        },
+      },
     ],
   },
 });

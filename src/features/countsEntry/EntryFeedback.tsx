@@ -47,6 +47,7 @@ export function EntryFeedback({ checks, labels, target }: { checks: EntryChecks;
               <dd className="num">{formatNumber(figures.concurrence, 3)}</dd>
               <dt>Purity</dt>
               <dd className="num">{formatNumber(figures.purity, 3)}</dd>
+              {!figures.physical && <dd className="col-span-2 text-xs text-ink-faint">from a non-physical estimate: indicative only</dd>}
             </dl>
           )}
           <DensityBars2D rho={linear.rho} scale={sharedScale(linear.rho)} stacked />

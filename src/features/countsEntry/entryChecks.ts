@@ -5,15 +5,20 @@
  *
  * "Far from what the rest imply" (our rule; common practice has no single one): fit the
  * physical least-squares estimate of Smolin, Gambetta, Smith (PRL 108, 070502, 2012) to all
- * rows, predict every row's counts μ̂ from it, and flag rows whose count misses μ̂ by more than
- * OUTLIER_SIGMA Poisson standard deviations and by more than OUTLIER_SHARE of the largest
- * count. A linear estimate alone cannot do this for the 16-setting set: it fits 16 rows with
- * 16 parameters exactly.
+ * rows and predict every row's counts μ̂ from it. The row that misses μ̂ by the most Poisson
+ * standard deviations — if by more than OUTLIER_SIGMA of them and by more than OUTLIER_SHARE
+ * of the largest count — is flagged, its count is set aside (replaced by μ̂) and the fit is
+ * repeated, up to MAX_OUTLIERS times. One gross typo drags the fit for every row, so flagging
+ * all rows that miss the first fit would blame the innocent; taking the worst one at a time
+ * does not. A linear estimate alone cannot do this for the 16-setting set: it fits 16 rows
+ * with 16 parameters exactly.
  */
 import { figuresOfMerit, reconstruct, type CountsRow, type FiguresOfMerit, type Reconstruction, type SetupConventions, type Target } from "@shared/physics";
 
 export const OUTLIER_SIGMA = 6;
 export const OUTLIER_SHARE = 0.05;
+export const MAX_OUTLIERS = 3;
+const IMPUTE_STEPS = 30;
 /** Below this mean count per row, Poisson noise alone is over 30 % (1/√10). */
 export const LOW_MEAN_COUNT = 10;
 
@@ -72,15 +77,51 @@ export function checkEntry(rows: EntryRow[], conventions: SetupConventions, targ
   const lowCounts = sum / rows.length < LOW_MEAN_COUNT;
   try {
     const linear = reconstruct({ rows: engineRows, conventions }, { method: "linear" });
-    const physicalFit = reconstruct({ rows: engineRows, conventions }, { method: "projected" });
-    const largest = Math.max(...engineRows.map((r) => r.counts));
-    const outliers = engineRows.flatMap((r, i) => {
-      const expected = physicalFit.expectedCounts[i];
-      const miss = Math.abs(r.counts - expected);
-      return miss > OUTLIER_SIGMA * Math.sqrt(Math.max(expected, 1)) && miss > OUTLIER_SHARE * largest ? [{ row: i, counts: r.counts, expected }] : [];
-    });
-    return { ...base, lowCounts, linear, figures: figuresOfMerit(linear.rho, target), outliers };
+    return { ...base, lowCounts, linear, figures: figuresOfMerit(linear.rho, target), outliers: findOutliers(engineRows, conventions) };
   } catch (e) {
     return { ...base, lowCounts, estimateNote: (e as Error).message };
   }
+}
+
+function findOutliers(rows: CountsRow[], conventions: SetupConventions): Outlier[] {
+  const largest = Math.max(...rows.map((r) => r.counts));
+  const working = rows.map((r) => ({ ...r }));
+  const flagged: number[] = [];
+  const fit = () => reconstruct({ rows: working, conventions }, { method: "projected" }).expectedCounts;
+  let expected = fit();
+  for (let round = 0; round < MAX_OUTLIERS; round++) {
+    let worst = -1;
+    let worstZ = OUTLIER_SIGMA;
+    working.forEach((r, i) => {
+      const miss = Math.abs(r.counts - expected[i]);
+      const z = miss / Math.sqrt(Math.max(expected[i], 1));
+      if (!flagged.includes(i) && z > worstZ && miss > OUTLIER_SHARE * largest) {
+        worst = i;
+        worstZ = z;
+      }
+    });
+    if (worst < 0) break;
+    flagged.push(worst);
+    expected = imputeFlagged(working, flagged, fit);
+  }
+  return flagged.map((row) => ({ row, counts: rows[row].counts, expected: expected[row] }));
+}
+
+/**
+ * Sets the flagged rows aside: their counts are replaced by what the fit to the others predicts,
+ * refitting until those predictions settle (a fixed-point iteration; each step can only move the
+ * set-aside rows toward agreement with the rest).
+ */
+function imputeFlagged(working: CountsRow[], flagged: number[], fit: () => number[]): number[] {
+  let expected = fit();
+  for (let step = 0; step < IMPUTE_STEPS; step++) {
+    let change = 0;
+    for (const i of flagged) {
+      change = Math.max(change, Math.abs(working[i].counts - expected[i]) / Math.max(expected[i], 1));
+      working[i].counts = expected[i];
+    }
+    expected = fit();
+    if (change < 0.01) break;
+  }
+  return expected;
 }
