@@ -65,8 +65,12 @@ export class MonteCarloPool {
     this.threads = Array.from({ length: this.size }, () => {
       const worker = new Worker(WORKER_ENTRY);
       const pending: PoolThread["pending"] = new Map();
+      // Referenced until it reports ready, so that awaiting start() keeps the process alive.
       const ready = new Promise<void>((resolve, reject) => {
-        worker.once("message", () => resolve());
+        worker.once("message", () => {
+          if (pending.size === 0) worker.unref();
+          resolve();
+        });
         worker.once("error", reject);
       });
       worker.on("message", (reply: BlockReply | { ready: true }) => {
@@ -82,7 +86,6 @@ export class MonteCarloPool {
         for (const job of pending.values()) job.reject(error);
         pending.clear();
       });
-      worker.unref();
       return { worker, ready, pending };
     });
     return this.threads;

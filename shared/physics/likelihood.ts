@@ -78,18 +78,21 @@ export function gapBound(g: CMatrix, mInvSqrt: CMatrix, totalExpected: number, t
   return Math.max(0, totalExpected - totalCounts - totalCounts * values[values.length - 1]);
 }
 
+/** G = Σ_k (1 − n_k/μ_k) w_k P_k, the gradient of NLL with respect to σ (rows without counts: c_k = 1). */
+export function gradientOperator(model: MeasurementModel, data: PreparedCounts, sigma: CMatrix): CMatrix {
+  const mu = expectedCounts(model, data.weights, sigma);
+  return weightedProjectorSum(model, mu.map((m, k) => (data.counts[k] > 0 ? 1 - data.counts[k] / m : 1)));
+}
+
 /** The bound (Σμ − N) − N λ_min(M^{-1/2} G M^{-1/2}) (see maximumLikelihood.ts). */
 export function optimalityGap(model: MeasurementModel, data: PreparedCounts, sigma: CMatrix, mInvSqrt: CMatrix): number {
   const mu = expectedCounts(model, data.weights, sigma);
-  const c = new Float64Array(model.rows);
   let total = 0;
   for (let k = 0; k < model.rows; k++) {
     total += mu[k];
-    const nk = data.counts[k];
-    if (nk > 0 && !(mu[k] > 0)) return Infinity;
-    c[k] = nk > 0 ? 1 - nk / mu[k] : 1;
+    if (data.counts[k] > 0 && !(mu[k] > 0)) return Infinity;
   }
-  return gapBound(weightedProjectorSum(model, c), mInvSqrt, total, data.totalCounts);
+  return gapBound(gradientOperator(model, data, sigma), mInvSqrt, total, data.totalCounts);
 }
 
 /** s·σ with s = N / Σμ, the best multiple of σ. */

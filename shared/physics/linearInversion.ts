@@ -21,6 +21,12 @@ export interface LinearSystem {
   rows: number;
   /** Row-major rows × params */
   design: Float64Array;
+  /**
+   * Column indices of the non-zero design entries of row k: nonzero[nonzeroStart[k] … nonzeroStart[k+1]).
+   * Ideal letter states have two non-zero Bloch components, so a row has only 2ⁿ of its 4ⁿ entries.
+   */
+  nonzero: Int32Array;
+  nonzeroStart: Int32Array;
   normal: PivotedCholesky;
 }
 
@@ -32,19 +38,19 @@ export function prepareLinearSystem(model: MeasurementModel): LinearSystem {
   const p = model.dimension * model.dimension;
   const design = new Float64Array(rows * p);
   for (let k = 0; k < rows; k++) designRow(model.singleRe, model.singleIm, k * photons * 2, photons, design, k * p);
+  const { nonzero, nonzeroStart } = sparsity(design, rows, p);
   const gram = new Float64Array(p * p);
   for (let k = 0; k < rows; k++) {
     const o = k * p;
-    for (let i = 0; i < p; i++) {
+    for (let a = nonzeroStart[k]; a < nonzeroStart[k + 1]; a++) {
+      const i = nonzero[a];
       const ai = design[o + i];
-      if (ai === 0) continue;
-      const gi = i * p;
-      for (let j = 0; j <= i; j++) gram[gi + j] += ai * design[o + j];
+      for (let b = nonzeroStart[k]; b <= a; b++) gram[i * p + nonzero[b]] += ai * design[o + nonzero[b]];
     }
   }
   const normal = pivotedCholesky(gram, p, RANK_TOLERANCE);
   if (normal.rank < p) throw incompleteError(gram, p, normal.rank, photons, rows);
-  return { photons, params: p, rows, design, normal };
+  return { photons, params: p, rows, design, nonzero, nonzeroStart, normal };
 }
 
 /** σ (unnormalised, Tr σ = estimated pair rate) from the rates; may be non-physical. */
@@ -57,6 +63,16 @@ export function linearInversionSigma(system: LinearSystem, rates: Float64Array):
     for (let j = 0; j < p; j++) rhs[j] += design[k * p + j] * r;
   }
   return fromPauliCoefficients(choleskySolve(system.normal, rhs), system.photons);
+}
+
+function sparsity(design: Float64Array, rows: number, p: number): { nonzero: Int32Array; nonzeroStart: Int32Array } {
+  const nonzeroStart = new Int32Array(rows + 1);
+  const list: number[] = [];
+  for (let k = 0; k < rows; k++) {
+    for (let j = 0; j < p; j++) if (design[k * p + j] !== 0) list.push(j);
+    nonzeroStart[k + 1] = list.length;
+  }
+  return { nonzero: Int32Array.from(list), nonzeroStart };
 }
 
 function incompleteError(gram: Float64Array, p: number, rank: number, photons: number, rows: number): EngineInputError {

@@ -2,8 +2,8 @@
  * Maximum likelihood on the Poisson likelihood over positive semidefinite σ (physics contract
  * §4): minimise NLL(σ) = Σ_k [μ_k − n_k ln μ_k], μ_k = w_k ⟨ψ_k|σ|ψ_k⟩.
  *
- * 1. Newton on the convex NLL over all Hermitian σ (unconstrainedPoisson.ts), from the
- *    projected least-squares estimate. If that optimum is positive, it is the answer.
+ * 1. Newton on the convex NLL over all Hermitian σ (unconstrainedPoisson.ts), from the linear
+ *    estimate (or the projected one). If that optimum is positive, it is the answer.
  * 2. Otherwise, and to confirm it, Newton in the Cholesky parametrisation σ = U T T† U† of
  *    James, Kwiat, Munro, White, Phys. Rev. A 64, 052312 (2001), §IV (T lower triangular with
  *    real diagonal), in the eigenbasis U of step 1's result, where the start is T = √Λ. Columns
@@ -21,10 +21,10 @@
 import { inBasis, type MeasurementModel } from "./measurementModel";
 import type { PreparedCounts } from "./corrections";
 import type { LinearSystem } from "./linearInversion";
-import { type CMatrix, add, hermitianPart, identity, multiply, adjoint, scale } from "./linalg/complexMatrix";
-import { hermitianEigen } from "./linalg/hermitianEigen";
+import { type CMatrix, add, hermitianPart, identity, multiply, adjoint, scale, zeros } from "./linalg/complexMatrix";
+import { fromSpectrum, hermitianEigen } from "./linalg/hermitianEigen";
 import { DampedNewton } from "./linalg/dampedNewton";
-import { expectedCounts, inverseSqrtTotalOperator, logLikelihood, optimalityGap, rescaled } from "./likelihood";
+import { expectedCounts, gradientOperator, inverseSqrtTotalOperator, logLikelihood, optimalityGap, rescaled } from "./likelihood";
 import { sigmaFromParameters } from "./choleskyParametrisation";
 import { PoissonNewton } from "./poissonNewton";
 import { UnconstrainedPoisson } from "./unconstrainedPoisson";
@@ -35,12 +35,16 @@ export const MLE_TOLERANCE = 1e-10;
 const MAX_ITERATIONS = 200;
 /** Fraction of the maximally mixed state mixed into the start so that it is positive definite. */
 const START_MIXING = 0.01;
+/** Weight given to new directions when a face is widened, relative to Tr σ. */
+const WIDENING = 1e-3;
 /** Eigenvalues of the step-1 optimum below this fraction of the largest start on the face's boundary. */
 const FACE_THRESHOLD = 1e-9;
 /** Check the gap once a step lowered NLL by less than this multiple of the threshold. */
 const GAP_CHECK_FACTOR = 10;
 /** Steps lowering NLL by less than this multiple of the threshold have reached rounding level. */
 const STALL_FACTOR = 1e-6;
+/** Newton steps in one eigenbasis before re-basing. */
+const STEPS_PER_BASIS = 3;
 
 export interface MleOptions {
   tolerance?: number;
@@ -63,20 +67,23 @@ export function maximumLikelihood(
   model: MeasurementModel,
   linear: LinearSystem,
   data: PreparedCounts,
-  start: CMatrix,
+  starts: { linear: CMatrix; positive: CMatrix },
   options: MleOptions = {},
 ): MleResult {
   const tolerance = options.tolerance ?? MLE_TOLERANCE;
   const threshold = tolerance * Math.max(data.totalCounts, 1);
   const budget = { left: options.maxIterations ?? MAX_ITERATIONS };
   const mInvSqrt = inverseSqrtTotalOperator(model, data.weights);
-  const mixed = fullRankStart(model, data, start);
-  let sigma = unconstrainedOptimum(linear, data, mixed, threshold, budget) ?? mixed;
-  let search = positiveSearch(model, data, mInvSqrt, sigma, threshold, budget, true);
-  if (search.gap > threshold && search.rank < model.dimension && budget.left > 0) {
-    const d = model.dimension;
-    const opened = add(scale(search.sigma, 1 - START_MIXING), identity(d), (START_MIXING * traceOf(search.sigma)) / d);
-    search = positiveSearch(model, data, mInvSqrt, opened, threshold, budget, false);
+  const mixed = fullRankStart(model, data, starts.positive);
+  let sigma = unconstrainedOptimum(linear, data, [starts.linear, mixed], threshold, budget) ?? mixed;
+  let search = positiveSearch(model, data, mInvSqrt, sigma, threshold, budget);
+  while (search.gap > threshold && budget.left > 0) {
+    // Re-base in the current eigenbasis every few steps (directions that went to zero leave the
+    // face); a face on which Newton has converged but the certificate fails is widened along the
+    // directions that would raise the likelihood.
+    if (search.stalled && search.rank === model.dimension) break;
+    const next = search.stalled ? widened(model, data, search.sigma, mInvSqrt) : search.sigma;
+    search = positiveSearch(model, data, mInvSqrt, next, threshold, budget);
   }
   sigma = rescaled(model, data, search.sigma);
   const gap = optimalityGap(model, data, sigma, mInvSqrt);
@@ -91,8 +98,8 @@ export function maximumLikelihood(
 }
 
 /**
- * Newton over T in the eigenbasis of `start`; with `onFace`, columns of eigenvalues below
- * FACE_THRESHOLD·λ_max stay zero. Returns σ in the original basis and the gap reached.
+ * Newton over T in the eigenbasis of `start`; columns of eigenvalues below FACE_THRESHOLD·λ_max
+ * stay zero. Returns σ in the original basis and the gap reached.
  */
 function positiveSearch(
   model: MeasurementModel,
@@ -101,30 +108,36 @@ function positiveSearch(
   start: CMatrix,
   threshold: number,
   budget: { left: number },
-  onFace: boolean,
 ) {
   const d = model.dimension;
   const { values, vectors: u } = hermitianEigen(hermitianPart(start));
   const floor = FACE_THRESHOLD * values[0];
-  const rank = onFace ? Math.max(1, values.filter((v) => v > floor).length) : d;
+  const rank = Math.max(1, values.filter((v) => v > floor).length);
   const rotated = inBasis(model, u);
   const rotatedInvSqrt = multiply(multiply(adjoint(u), mInvSqrt), u);
   const problem = new PoissonNewton(rotated, data, rank);
   const newton = new DampedNewton(problem);
+  // Start at the positive part of `start`, scaled to the measured total (the best multiple).
+  const kept = values.map((v, i) => (i < rank ? Math.max(v, floor) : 0));
+  const scaleToTotal = data.totalCounts / expectedCounts(rotated, data.weights, diagonal(kept)).reduce((a, b) => a + b, 0);
   const theta = new Float64Array(d * d);
-  for (let i = 0; i < d; i++) theta[i * i + 2 * i] = i < rank ? Math.sqrt(Math.max(values[i], floor)) : 0;
+  for (let i = 0; i < d; i++) theta[i * i + 2 * i] = Math.sqrt(kept[i] * scaleToTotal);
   let gap = Infinity;
   let lastDecrease = Infinity;
-  for (;;) {
+  let stalled = false;
+  for (let steps = 0; ; steps++) {
     problem.evaluate(theta);
-    // The certificate costs an eigen-decomposition; ask for it only once steps have become small.
-    // A failed certificate after steps at rounding level means this face is the wrong one.
-    if (lastDecrease <= GAP_CHECK_FACTOR * threshold) {
+    // The certificate costs an eigen-decomposition; ask for it at the start (step 1 may already
+    // have found the optimum) and once steps have become small. A failed certificate after
+    // steps at rounding level means this face is the wrong one.
+    if (steps === 0 || lastDecrease <= GAP_CHECK_FACTOR * threshold) {
       gap = problem.gap(rotatedInvSqrt);
-      if (gap <= threshold || lastDecrease <= STALL_FACTOR * threshold) break;
+      stalled = lastDecrease <= STALL_FACTOR * threshold;
+      if (gap <= threshold || stalled) break;
     }
-    const step = budget.left > 0 ? newton.step(theta) : null;
+    const step = steps < STEPS_PER_BASIS && budget.left > 0 ? newton.step(theta) : null;
     if (!step) {
+      if (steps < STEPS_PER_BASIS) stalled = true;
       gap = problem.gap(rotatedInvSqrt);
       break;
     }
@@ -132,24 +145,40 @@ function positiveSearch(
     lastDecrease = step.decrease;
   }
   const sigma = multiply(multiply(u, sigmaFromParameters(theta, d)), adjoint(u));
-  return { sigma, gap, rank };
+  return { sigma, gap, rank, stalled };
 }
 
 /**
- * Newton on the convex likelihood over all Hermitian σ (unconstrainedPoisson.ts) from a
- * positive start; null when some row has no counts (the problem is then unbounded).
+ * σ plus a little weight along every direction in which the linearised NLL decreases: the
+ * eigenvectors w of M^{-1/2} G M^{-1/2} with negative eigenvalues, mapped to M^{-1/2} w (the
+ * minimisers of the linearisation over S, see the certificate above).
  */
-function unconstrainedOptimum(linear: LinearSystem, data: PreparedCounts, start: CMatrix, threshold: number, budget: { left: number }): CMatrix | null {
+function widened(model: MeasurementModel, data: PreparedCounts, sigma: CMatrix, mInvSqrt: CMatrix): CMatrix {
+  const d = model.dimension;
+  const { values, vectors } = hermitianEigen(multiply(multiply(mInvSqrt, gradientOperator(model, data, sigma)), mInvSqrt));
+  const directions = values.map((v) => (v < 0 ? 1 : 0));
+  const added = multiply(multiply(mInvSqrt, fromSpectrum(vectors, directions)), mInvSqrt);
+  const weight = (WIDENING * traceOf(sigma)) / Math.max(1, traceOf(added));
+  return add(sigma, added, weight);
+}
+
+/**
+ * Newton on the convex likelihood over all Hermitian σ (unconstrainedPoisson.ts) from the first
+ * start with every μ_k > 0 (the linear estimate if it qualifies: for a square system it already
+ * is the optimum, μ_k = n_k); null when some row has no counts (the problem is then unbounded).
+ */
+function unconstrainedOptimum(linear: LinearSystem, data: PreparedCounts, starts: CMatrix[], threshold: number, budget: { left: number }): CMatrix | null {
   for (let k = 0; k < data.counts.length; k++) if (!(data.counts[k] > 0)) return null;
   const problem = new UnconstrainedPoisson(linear, data);
   const newton = new DampedNewton(problem);
-  const x = pauliCoefficients(start, linear.photons);
-  while (budget.left > 0 && problem.evaluate(x)) {
-    const step = newton.step(x);
+  const x = starts.map((s) => pauliCoefficients(s, linear.photons)).find((candidate) => problem.evaluate(candidate));
+  if (!x) return null;
+  do {
+    const step = budget.left > 0 ? newton.step(x) : null;
     if (!step) break;
     budget.left--;
     if (step.decrease <= threshold) break;
-  }
+  } while (problem.evaluate(x));
   return fromPauliCoefficients(x, linear.photons);
 }
 
@@ -158,6 +187,12 @@ function fullRankStart(model: MeasurementModel, data: PreparedCounts, start: CMa
   const t = traceOf(start);
   const unit = t > 0 ? scale(start, 1 / t) : identity(d);
   return rescaled(model, data, add(scale(unit, 1 - START_MIXING), identity(d), START_MIXING / d));
+}
+
+function diagonal(values: ArrayLike<number>): CMatrix {
+  const m = zeros(values.length);
+  for (let i = 0; i < values.length; i++) m.re[i * values.length + i] = values[i];
+  return m;
 }
 
 function traceOf(m: CMatrix): number {

@@ -86,7 +86,7 @@ export function solveProblem(problem: PreparedProblem, data: PreparedCounts, opt
   if (options.method === "linear") return { sigma: linear };
   const projected = projectedOrMixed(linear);
   if (options.method === "projected") return { sigma: rescaled(problem.model, data, projected) };
-  const mle = maximumLikelihood(problem.model, problem.linear, data, projected, options);
+  const mle = maximumLikelihood(problem.model, problem.linear, data, { linear, positive: projected }, options);
   return { sigma: mle.sigma, mle };
 }
 

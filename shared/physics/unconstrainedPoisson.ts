@@ -33,27 +33,29 @@ export class UnconstrainedPoisson implements NewtonProblem {
   /** μ and the gradient at x; false if some μ_k ≤ 0. */
   evaluate(x: Float64Array): boolean {
     const { size: p, wa, mu, gradient, data } = this;
+    const { nonzero, nonzeroStart } = this.linear;
     gradient.fill(0);
     for (let k = 0; k < this.linear.rows; k++) {
       let m = 0;
-      for (let j = 0; j < p; j++) m += wa[k * p + j] * x[j];
+      for (let a = nonzeroStart[k]; a < nonzeroStart[k + 1]; a++) m += wa[k * p + nonzero[a]] * x[nonzero[a]];
       mu[k] = m;
       if (!(m > 0)) return false;
       const c = 1 - data.counts[k] / m;
-      for (let j = 0; j < p; j++) gradient[j] += c * wa[k * p + j];
+      for (let a = nonzeroStart[k]; a < nonzeroStart[k + 1]; a++) gradient[nonzero[a]] += c * wa[k * p + nonzero[a]];
     }
     return true;
   }
 
   buildHessian(): void {
     const { size: p, wa, mu, hessian: h, data } = this;
+    const { nonzero, nonzeroStart } = this.linear;
     h.fill(0);
     for (let k = 0; k < this.linear.rows; k++) {
       const s = data.counts[k] / (mu[k] * mu[k]);
-      for (let a = 0; a < p; a++) {
-        const ga = s * wa[k * p + a];
-        if (ga === 0) continue;
-        for (let b = 0; b <= a; b++) h[a * p + b] += ga * wa[k * p + b];
+      for (let a = nonzeroStart[k]; a < nonzeroStart[k + 1]; a++) {
+        const i = nonzero[a];
+        const ga = s * wa[k * p + i];
+        for (let b = nonzeroStart[k]; b <= a; b++) h[i * p + nonzero[b]] += ga * wa[k * p + nonzero[b]];
       }
     }
     for (let a = 0; a < p; a++) for (let b = 0; b < a; b++) h[b * p + a] = h[a * p + b];
@@ -61,9 +63,10 @@ export class UnconstrainedPoisson implements NewtonProblem {
 
   setDirection(delta: Float64Array): void {
     const { size: p, wa, change } = this;
+    const { nonzero, nonzeroStart } = this.linear;
     for (let k = 0; k < this.linear.rows; k++) {
       let m = 0;
-      for (let j = 0; j < p; j++) m += wa[k * p + j] * delta[j];
+      for (let a = nonzeroStart[k]; a < nonzeroStart[k + 1]; a++) m += wa[k * p + nonzero[a]] * delta[nonzero[a]];
       change[k] = m;
     }
   }
