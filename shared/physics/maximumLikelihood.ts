@@ -82,7 +82,7 @@ export function maximumLikelihood(
     // face); a face on which Newton has converged but the certificate fails is widened along the
     // directions that would raise the likelihood.
     if (search.stalled && search.rank === model.dimension) break;
-    const next = search.stalled ? widened(model, data, search.sigma, mInvSqrt) : search.sigma;
+    const next = search.rank < model.dimension ? widened(model, data, search.sigma, mInvSqrt, !search.stalled) : search.sigma;
     search = positiveSearch(model, data, mInvSqrt, next, threshold, budget);
   }
   sigma = rescaled(model, data, search.sigma);
@@ -153,13 +153,37 @@ function positiveSearch(
  * eigenvectors w of M^{-1/2} G M^{-1/2} with negative eigenvalues, mapped to M^{-1/2} w (the
  * minimisers of the linearisation over S, see the certificate above).
  */
-function widened(model: MeasurementModel, data: PreparedCounts, sigma: CMatrix, mInvSqrt: CMatrix): CMatrix {
+function widened(model: MeasurementModel, data: PreparedCounts, sigma: CMatrix, mInvSqrt: CMatrix, outsideOnly: boolean): CMatrix {
   const d = model.dimension;
   const { values, vectors } = hermitianEigen(multiply(multiply(mInvSqrt, gradientOperator(model, data, sigma)), mInvSqrt));
-  const directions = values.map((v) => (v < 0 ? 1 : 0));
+  const mapped = multiply(mInvSqrt, vectors);
+  const support = hermitianEigen(hermitianPart(sigma));
+  const floor = FACE_THRESHOLD * support.values[0];
+  const directions = values.map((v, col) => (v < 0 && (!outsideOnly || outsideFraction(mapped, col, support, floor) > 0.5) ? 1 : 0));
+  if (!directions.some((x) => x)) return sigma;
   const added = multiply(multiply(mInvSqrt, fromSpectrum(vectors, directions)), mInvSqrt);
   const weight = (WIDENING * traceOf(sigma)) / Math.max(1, traceOf(added));
   return add(sigma, added, weight);
+}
+
+/** Share of column `col` of `y` outside the span of the eigenvectors of σ above `floor`. */
+function outsideFraction(y: CMatrix, col: number, support: { values: Float64Array; vectors: CMatrix }, floor: number): number {
+  const d = y.n;
+  let total = 0;
+  let inside = 0;
+  for (let i = 0; i < d; i++) total += y.re[i * d + col] ** 2 + y.im[i * d + col] ** 2;
+  for (let k = 0; k < d; k++) {
+    if (!(support.values[k] > floor)) continue;
+    let re = 0;
+    let im = 0;
+    for (let i = 0; i < d; i++) {
+      const vr = support.vectors.re[i * d + k], vi = support.vectors.im[i * d + k];
+      re += vr * y.re[i * d + col] + vi * y.im[i * d + col];
+      im += vr * y.im[i * d + col] - vi * y.re[i * d + col];
+    }
+    inside += re * re + im * im;
+  }
+  return total > 0 ? 1 - inside / total : 0;
 }
 
 /**
