@@ -45,6 +45,10 @@ export const router = createBrowserRouter([
       { path: "labs/:labId/sessions/:sessionId/bell-test/new", lazy: async () => ({ Component: (await import("./pages/NewBellTestPage")).NewBellTestPage }) },
       { path: "labs/:labId/sessions/:sessionId/fringe-scan/new", lazy: async () => ({ Component: (await import("./pages/NewFringeScanPage")).NewFringeScanPage }) },
       { path: "labs/:labId/trends", lazy: async () => ({ Component: (await import("./pages/TrendsPage")).TrendsPage }) },
+      // Batch uploads and personal API tokens
+      { path: "labs/:labId/batches", lazy: async () => ({ Component: (await import("./pages/BatchUploadPage")).BatchUploadPage }) },
+      { path: "labs/:labId/batches/:batchId", lazy: async () => ({ Component: (await import("./pages/BatchPage")).BatchPage }) },
+      { path: "tokens", lazy: async () => ({ Component: (await import("./pages/ApiTokensPage")).ApiTokensPage }) },
       { path: "status", element: <StatusPage /> },
       { path: "*", element: <NotFoundPage /> },
     ],

@@ -18,4 +18,8 @@ export const queryKeys = {
   runs: (labId: string, query: object) => ["labs", labId, "notebook", "runs", query] as const,
   run: (labId: string, runId: string) => ["labs", labId, "notebook", "run", runId] as const,
   compare: (labId: string, runIds: string[], method: string) => ["labs", labId, "notebook", "compare", runIds, method] as const,
+  /** Batch uploads: under the lab but not the notebook, so notebook writes do not refetch them. */
+  batches: (labId: string, sessionId?: string) => ["labs", labId, "batches", ...(sessionId ? [sessionId] : [])] as const,
+  batch: (labId: string, batchId: string) => ["labs", labId, "batch", batchId] as const,
+  apiTokens: ["api-tokens"] as const,
 };

@@ -23,6 +23,7 @@ function useNav(): NavItem[] {
     { to: `/labs/${labId}/sources`, label: "Sources" },
     { to: `/labs/${labId}/compare`, label: "Compare" },
     { to: `/labs/${labId}/trends`, label: "Trends" },
+    { to: `/labs/${labId}/batches`, label: "Batch upload" },
     { to: `/labs/${labId}/members`, label: "People" },
     ...NAV.filter((n) => n.to !== "/"),
   ];

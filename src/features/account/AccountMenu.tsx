@@ -62,6 +62,9 @@ export function AccountMenu({ me }: { me: Me }) {
               People in this lab
             </Link>
           )}
+          <Link className={itemClass} to="/tokens" onClick={close}>
+            API tokens
+          </Link>
           <Link className={itemClass} to="/labs/new" onClick={close}>
             Create a lab
           </Link>
