@@ -120,6 +120,31 @@ describe("the counts grid and the state view", () => {
   });
 });
 
+describe("one counts file", () => {
+  it("names the bad cell of a malformed file before sending, and stores a good one as a run", async () => {
+    const { page, shot } = browser;
+    await signIn(page, baseUrl, "student@larkspur.example");
+    await page.getByRole("region", { name: "Recent sessions" }).getByRole("link").nth(1).click();
+    await page.getByRole("link", { name: "New run" }).first().click();
+    await page.getByRole("radio", { name: "Upload a file" }).check({ force: true });
+    const file = page.getByLabel("Counts file (.csv)");
+    await file.setInputFiles("examples/batches/bad-day/typo-in-counts.csv");
+    // The same parser as the server's: the file line and the column of the typed letter o.
+    await expect.poll(() => page.getByRole("alert").innerText()).toMatch(/row 9, column "counts".*Nothing was sent\./s);
+    expect(await page.getByRole("button", { name: "Upload and reconstruct" }).isDisabled()).toBe(true);
+
+    await file.setInputFiles("examples/tomography/sagnac2-5mW-tomo16.csv");
+    await page.getByText("Read 16 rows for 2 photons").waitFor();
+    await page.getByRole("button", { name: "Upload and reconstruct" }).click();
+    await page.waitForURL(/\/runs\/[0-9a-f-]{36}$/, { timeout: 90_000 });
+    await page.getByTestId("key-figures").waitFor();
+    expect(await page.getByTestId("key-figures").innerText()).toMatch(/Fidelity to Ψ⁻\s+0\.\d+ ± 0\.\d+/);
+    expect(await page.getByRole("link", { name: "sagnac2-5mW-tomo16.csv" }).isVisible()).toBe(true);
+    await shot("07-uploaded-run");
+    expect(browser.errors).toEqual([]);
+  });
+});
+
 describe("without WebGL", () => {
   it("shows the state as flat bars and says why", async () => {
     const plain = await openBrowser({ extraFlags: ["--disable-webgl", "--disable-3d-apis"] });

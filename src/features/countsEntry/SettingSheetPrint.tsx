@@ -14,7 +14,7 @@ export function SettingSheetPrint({ rows, setName, session }: { rows: GridRow[];
       <h1 style={{ fontSize: "14pt", fontWeight: 700 }}>Waveplate sheet — {setName}</h1>
       <p>
         Session “{session.title}”, {session.date}, source {session.source.name}. Handedness {session.handedness}.{" "}
-        {cal ? "Angles include this session's waveplate calibrations." : "Ideal waveplates (no calibrations set)."} Angles are the mount readings to set.
+        {cal ? "Angles include this session's waveplate calibrations." : "Ideal waveplates (no calibrations set)."} Angles are the mount readings to set; ≈ marks states these plates reach only approximately.
       </p>
       <table style={{ borderCollapse: "collapse", marginTop: "8pt", width: "100%" }}>
         <thead>
@@ -36,7 +36,10 @@ export function SettingSheetPrint({ rows, setName, session }: { rows: GridRow[];
               <td>{i + 1}</td>
               <td>{r.label}</td>
               {r.arms.length
-                ? r.arms.flatMap((a, arm) => [<td key={`q${arm}`}>{formatDecimal(a.qwpDeg, 2)}°</td>, <td key={`h${arm}`}>{formatDecimal(a.hwpDeg, 2)}°</td>])
+                ? r.arms.flatMap((a, arm) => {
+                    const approx = a.reach < 0.99999 ? "≈" : "";
+                    return [<td key={`q${arm}`}>{approx}{formatDecimal(a.qwpDeg, 2)}°</td>, <td key={`h${arm}`}>{approx}{formatDecimal(a.hwpDeg, 2)}°</td>];
+                  })
                 : [0, 1, 2, 3].map((k) => <td key={k}>—</td>)}
               <td>{r.arms.map((a) => (a.port === "reflected" ? "refl." : "trans.")).join(", ")}</td>
               <td />
