@@ -16,6 +16,9 @@ import { NotFoundPage } from "./pages/NotFoundPage";
 import { StatusPage } from "./pages/StatusPage";
 
 export const router = createBrowserRouter([
+  // Pages that stand on their own (no lab navigation): a share link, a printable report.
+  { path: "shared/:token", lazy: async () => ({ Component: (await import("./pages/SharedLinkPage")).SharedLinkPage }) },
+  { path: "labs/:labId/reports/:itemType/:itemId", lazy: async () => ({ Component: (await import("./pages/ReportPage")).ReportPage }) },
   {
     element: <AppLayout />,
     children: [
@@ -45,6 +48,11 @@ export const router = createBrowserRouter([
       { path: "labs/:labId/sessions/:sessionId/bell-test/new", lazy: async () => ({ Component: (await import("./pages/NewBellTestPage")).NewBellTestPage }) },
       { path: "labs/:labId/sessions/:sessionId/fringe-scan/new", lazy: async () => ({ Component: (await import("./pages/NewFringeScanPage")).NewFringeScanPage }) },
       { path: "labs/:labId/trends", lazy: async () => ({ Component: (await import("./pages/TrendsPage")).TrendsPage }) },
+      // Sharing and exports
+      { path: "shared-with-me", lazy: async () => ({ Component: (await import("./pages/SharedWithMePage")).SharedWithMePage }) },
+      { path: "guest/:shareId", lazy: async () => ({ Component: (await import("./pages/GuestSharePage")).GuestSharePage }) },
+      { path: "labs/:labId/shares", lazy: async () => ({ Component: (await import("./pages/LabSharesPage")).LabSharesPage }) },
+      { path: "labs/:labId/import", lazy: async () => ({ Component: (await import("./pages/ImportBundlePage")).ImportBundlePage }) },
       // Batch uploads and personal API tokens
       { path: "labs/:labId/batches", lazy: async () => ({ Component: (await import("./pages/BatchUploadPage")).BatchUploadPage }) },
       { path: "labs/:labId/batches/:batchId", lazy: async () => ({ Component: (await import("./pages/BatchPage")).BatchPage }) },

@@ -72,14 +72,14 @@ export const BundleRunSchema = z.object({
   name: CreateRunSchema.shape.name,
   kind: RunKindSchema,
   settingSetId: SettingSetIdSchema,
-  notes: z.string().max(LIMITS.notesLength),
-  conditions: RunConditionsSchema,
-  currentRevision: z.number().int().min(1),
+  notes: z.string("Notes are text (\"\" for none).").max(LIMITS.notesLength).default(""),
+  conditions: RunConditionsSchema.default({ pumpPowerMw: null, crystalTemperatureC: null, compensatorTiltDeg: null }),
+  currentRevision: z.number("Say which revision is current (currentRevision, a number).").int().min(1),
   createdAt: isoTime,
-  revisions: z.array(BundleRevisionSchema).min(1, "A run needs at least one revision of counts.").max(BUNDLE_LIMITS.revisionsPerRun),
+  revisions: z.array(BundleRevisionSchema, "A run lists its revisions of counts (revisions: [ … ]).").min(1, "A run needs at least one revision of counts.").max(BUNDLE_LIMITS.revisionsPerRun),
   /** Oldest first (the order they were made in). */
-  reconstructions: z.array(BundleReconstructionSchema).max(BUNDLE_LIMITS.reconstructionsPerRun),
-  attachments: z.array(BundleAttachmentSchema).max(BUNDLE_LIMITS.attachmentsPerRun),
+  reconstructions: z.array(BundleReconstructionSchema, "reconstructions is a list ([] for none).").max(BUNDLE_LIMITS.reconstructionsPerRun).default([]),
+  attachments: z.array(BundleAttachmentSchema, "attachments is a list ([] for none).").max(BUNDLE_LIMITS.attachmentsPerRun).default([]),
 });
 export type BundleRun = z.infer<typeof BundleRunSchema>;
 
@@ -90,7 +90,7 @@ export const SessionBundleSchema = z
     exportedAt: isoTime,
     source: BundleSourceSchema,
     session: BundleSessionSchema,
-    runs: z.array(BundleRunSchema).max(BUNDLE_LIMITS.runs, `At most ${BUNDLE_LIMITS.runs} runs per bundle.`),
+    runs: z.array(BundleRunSchema, "runs is a list of the session's runs ([] for none).").max(BUNDLE_LIMITS.runs, `At most ${BUNDLE_LIMITS.runs} runs per bundle.`),
   })
   .superRefine((bundle, ctx) => bundle.runs.forEach((run, i) => checkRun(run, ["runs", i], ctx)));
 export type SessionBundle = z.infer<typeof SessionBundleSchema>;

@@ -11,6 +11,7 @@ import { labPaths } from "../notebook/labPaths";
 import { Pager } from "../notebook/Pager";
 import { useSelection } from "../notebook/useSelection";
 import { RunsTable } from "../runs/RunsTable";
+import { ShareExportActions } from "../sharing/ShareExportActions";
 import { SessionSetupForm, sessionFormDefaults } from "./SessionSetupForm";
 import { SetupSummary } from "./SetupSummary";
 
@@ -25,11 +26,10 @@ export function SessionView({ labId, sessionId }: { labId: string; sessionId: st
           <PageTitle
             subtitle={`${s.date} · ${s.source.name}`}
             actions={
-              s.can.write && (
-                <>
-                  <ButtonLink to={labPaths.newRun(labId, s.id)}>New run</ButtonLink>
-                </>
-              )
+              <>
+                {s.can.write && <ButtonLink to={labPaths.newRun(labId, s.id)}>New run</ButtonLink>}
+                <ShareExportActions labId={labId} itemType="session" itemId={s.id} can={s.can} />
+              </>
             }
           >
             {s.title}

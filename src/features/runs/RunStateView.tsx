@@ -14,6 +14,7 @@ import { CorrectionsForm } from "./CorrectionsForm";
 import { KeyFigures } from "../stateView/KeyFigures";
 import { FitDetails } from "./FitDetails";
 import { ReconstructionHistory } from "./ReconstructionHistory";
+import { ShareExportActions } from "../sharing/ShareExportActions";
 import { defaultReconstruction, describeCorrections, ofRevision, pickReconstruction } from "./reconstructionChoice";
 
 /** One run's reconstructed state: ρ as bars and numbers, figures of merit, spectrum, warnings. */
@@ -39,6 +40,7 @@ export function RunStateView({ labId, run, sessionWindowNs }: { labId: string; r
     <div className="space-y-4">
       <div className="flex flex-wrap items-center gap-x-6 gap-y-2">
         <SegmentedToggle label="Method" options={methods.map((m) => ({ value: m, label: METHOD_NAME[m] }))} value={selected.method} onChange={switchMethod} />
+        <ShareExportActions labId={labId} itemType="reconstruction" itemId={selected.id} can={run.can} />
         <p className="text-sm text-ink-soft">
           Counts revision {selected.revisionNumber}; {describeCorrections(selected.corrections)}.
           {selected.revisionNumber !== run.revisionNumber && <strong className="ml-1 text-caution">These are older counts than the current revision {run.revisionNumber}.</strong>}

@@ -9,6 +9,7 @@ import { formatCount, formatDecimal } from "@shared/format/uncertainty";
 import { labPaths } from "../notebook/labPaths";
 import { RawCounts } from "./RawCounts";
 import { RunStateView } from "./RunStateView";
+import { ShareExportActions } from "../sharing/ShareExportActions";
 
 /** A run: its reconstructed state and its raw counts. */
 export function RunView({ labId, runId }: { labId: string; runId: string }) {
@@ -29,9 +30,12 @@ export function RunView({ labId, runId }: { labId: string; runId: string }) {
               </>
             }
             actions={
-              <ButtonLink variant="secondary" to={`${labPaths.compare(labId, [r.id])}`}>
-                Compare with other runs
-              </ButtonLink>
+              <>
+                <ButtonLink variant="secondary" to={`${labPaths.compare(labId, [r.id])}`}>
+                  Compare with other runs
+                </ButtonLink>
+                <ShareExportActions labId={labId} itemType="run" itemId={r.id} can={r.can} />
+              </>
             }
           >
             {r.name}
