@@ -84,17 +84,6 @@ export function gradientOperator(model: MeasurementModel, data: PreparedCounts, 
   return weightedProjectorSum(model, mu.map((m, k) => (data.counts[k] > 0 ? 1 - data.counts[k] / m : 1)));
 }
 
-/** The bound (Σμ − N) − N λ_min(M^{-1/2} G M^{-1/2}) (see maximumLikelihood.ts). */
-export function optimalityGap(model: MeasurementModel, data: PreparedCounts, sigma: CMatrix, mInvSqrt: CMatrix): number {
-  const mu = expectedCounts(model, data.weights, sigma);
-  let total = 0;
-  for (let k = 0; k < model.rows; k++) {
-    total += mu[k];
-    if (data.counts[k] > 0 && !(mu[k] > 0)) return Infinity;
-  }
-  return gapBound(gradientOperator(model, data, sigma), mInvSqrt, total, data.totalCounts);
-}
-
 /** s·σ with s = N / Σμ, the best multiple of σ. */
 export function rescaled(model: MeasurementModel, data: PreparedCounts, sigma: CMatrix): CMatrix {
   const total = expectedCounts(model, data.weights, sigma).reduce((a, b) => a + b, 0);

@@ -24,7 +24,7 @@ import type { LinearSystem } from "./linearInversion";
 import { type CMatrix, add, hermitianPart, identity, multiply, adjoint, scale, zeros } from "./linalg/complexMatrix";
 import { fromSpectrum, hermitianEigen } from "./linalg/hermitianEigen";
 import { DampedNewton } from "./linalg/dampedNewton";
-import { expectedCounts, gradientOperator, inverseSqrtTotalOperator, logLikelihood, optimalityGap, rescaled } from "./likelihood";
+import { expectedCounts, gradientOperator, inverseSqrtTotalOperator, logLikelihood, rescaled } from "./likelihood";
 import { sigmaFromParameters } from "./choleskyParametrisation";
 import { PoissonNewton } from "./poissonNewton";
 import { UnconstrainedPoisson } from "./unconstrainedPoisson";
@@ -67,15 +67,16 @@ export function maximumLikelihood(
   model: MeasurementModel,
   linear: LinearSystem,
   data: PreparedCounts,
-  starts: { linear: CMatrix; positive: CMatrix },
+  starts: { linear: CMatrix; positive: () => CMatrix },
   options: MleOptions = {},
 ): MleResult {
   const tolerance = options.tolerance ?? MLE_TOLERANCE;
   const threshold = tolerance * Math.max(data.totalCounts, 1);
   const budget = { left: options.maxIterations ?? MAX_ITERATIONS };
   const mInvSqrt = inverseSqrtTotalOperator(model, data.weights);
-  const mixed = fullRankStart(model, data, starts.positive);
-  let sigma = unconstrainedOptimum(linear, data, [starts.linear, mixed], threshold, budget) ?? mixed;
+  // A positive definite start, needed only when the linear estimate has some μ_k ≤ 0.
+  const mixed = () => fullRankStart(model, data, starts.positive());
+  let sigma = unconstrainedOptimum(linear, data, [() => starts.linear, mixed], threshold, budget) ?? mixed();
   let search = positiveSearch(model, data, mInvSqrt, sigma, threshold, budget);
   while (search.gap > threshold && budget.left > 0) {
     // Re-base in the current eigenbasis every few steps (directions that went to zero leave the
@@ -85,8 +86,9 @@ export function maximumLikelihood(
     const next = search.rank < model.dimension ? widened(model, data, search.sigma, mInvSqrt, !search.stalled) : search.sigma;
     search = positiveSearch(model, data, mInvSqrt, next, threshold, budget);
   }
+  // Rescaling to Σμ = N only lowers NLL, so the gap bound of search.sigma holds for it as well.
   sigma = rescaled(model, data, search.sigma);
-  const gap = optimalityGap(model, data, sigma, mInvSqrt);
+  const gap = search.gap;
   return {
     sigma,
     logLikelihood: logLikelihood(data.counts, expectedCounts(model, data.weights, sigma)),
@@ -191,11 +193,18 @@ function outsideFraction(y: CMatrix, col: number, support: { values: Float64Arra
  * start with every μ_k > 0 (the linear estimate if it qualifies: for a square system it already
  * is the optimum, μ_k = n_k); null when some row has no counts (the problem is then unbounded).
  */
-function unconstrainedOptimum(linear: LinearSystem, data: PreparedCounts, starts: CMatrix[], threshold: number, budget: { left: number }): CMatrix | null {
+function unconstrainedOptimum(linear: LinearSystem, data: PreparedCounts, starts: (() => CMatrix)[], threshold: number, budget: { left: number }): CMatrix | null {
   for (let k = 0; k < data.counts.length; k++) if (!(data.counts[k] > 0)) return null;
   const problem = new UnconstrainedPoisson(linear, data);
   const newton = new DampedNewton(problem);
-  const x = starts.map((s) => pauliCoefficients(s, linear.photons)).find((candidate) => problem.evaluate(candidate));
+  let x: Float64Array | null = null;
+  for (const start of starts) {
+    const candidate = pauliCoefficients(start(), linear.photons);
+    if (problem.evaluate(candidate)) {
+      x = candidate;
+      break;
+    }
+  }
   if (!x) return null;
   do {
     const step = budget.left > 0 ? newton.step(x) : null;

@@ -84,9 +84,8 @@ export function solveProblem(problem: PreparedProblem, data: PreparedCounts, opt
   const rates = data.counts.map((n, k) => n / data.weights[k]);
   const linear = linearInversionSigma(problem.linear, rates);
   if (options.method === "linear") return { sigma: linear };
-  const projected = projectedOrMixed(linear);
-  if (options.method === "projected") return { sigma: rescaled(problem.model, data, projected) };
-  const mle = maximumLikelihood(problem.model, problem.linear, data, { linear, positive: projected }, options);
+  if (options.method === "projected") return { sigma: rescaled(problem.model, data, projectedOrMixed(linear)) };
+  const mle = maximumLikelihood(problem.model, problem.linear, data, { linear, positive: () => projectedOrMixed(linear) }, options);
   return { sigma: mle.sigma, mle };
 }
 
