@@ -61,7 +61,8 @@ export const RunConditionsSchema = z.object({
 
 /** Whether the rows fit the chosen set: every label of a standard set exactly once. */
 function checkRowsAgainstSet(settingSetId: SettingSetId, kind: RunKind, rows: CountsRowDto[], ctx: z.RefinementCtx): void {
-  if (kind !== "tomography" || settingSetId === "custom") return;
+  // No rows (or not a list) already has its own message; there is no first row to size the set by.
+  if (kind !== "tomography" || settingSetId === "custom" || !Array.isArray(rows) || rows.length === 0) return;
   let set: ReturnType<typeof standardSet>;
   try {
     set = standardSet(settingSetId, rows[0].setting.length);
