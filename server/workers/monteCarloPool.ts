@@ -86,6 +86,12 @@ export class MonteCarloPool {
         for (const job of pending.values()) job.reject(error);
         pending.clear();
       });
+      // A thread that dies takes the pool with it; the next run starts fresh threads.
+      worker.on("exit", (code) => {
+        for (const job of pending.values()) job.reject(new Error(`Monte Carlo worker stopped (exit code ${code})`));
+        pending.clear();
+        if (this.threads?.some((t) => t.worker === worker)) void this.close();
+      });
       return { worker, ready, pending };
     });
     return this.threads;
