@@ -121,7 +121,7 @@ describe("the counts grid and the state view", () => {
 });
 
 describe("one counts file", () => {
-  it("names the bad cell of a malformed file before sending, and stores a good one as a run", async () => {
+  it("names the bad cell of a malformed file before sending, stores a good one, and reconstructs it again with corrections", async () => {
     const { page, shot } = browser;
     await signIn(page, baseUrl, "student@larkspur.example");
     await page.getByRole("region", { name: "Recent sessions" }).getByRole("link").nth(1).click();
@@ -141,6 +141,17 @@ describe("one counts file", () => {
     expect(await page.getByTestId("key-figures").innerText()).toMatch(/Fidelity to Ψ⁻\s+0\.\d+ ± 0\.\d+/);
     expect(await page.getByRole("link", { name: "sagnac2-5mW-tomo16.csv" }).isVisible()).toBe(true);
     await shot("07-uploaded-run");
+
+    // The file has singles: reconstruct again with accidentals subtracted; the result is stored and shown.
+    const history = page.getByRole("region", { name: "Every reconstruction of this run" }).locator("tbody tr");
+    const before = await history.count();
+    await page.getByLabel(/Subtract A = s/).check();
+    await page.getByLabel("Window τ (full width)").fill("3");
+    await page.getByLabel("Monte Carlo samples").fill("50");
+    await page.getByRole("button", { name: "Reconstruct with these settings" }).click();
+    await page.getByText("Counts revision 1; accidentals subtracted (τ = 3 ns).").waitFor({ timeout: 60_000 });
+    await expect.poll(() => history.count()).toBe(before + 1);
+    expect(await history.first().innerText()).toMatch(/shown\s+Maximum likelihood\s+accidentals subtracted \(τ = 3 ns\)/);
     expect(browser.errors).toEqual([]);
   });
 });
