@@ -64,7 +64,10 @@ export function parseTomographyCsv(input: string, options: TomographyCsvOptions 
     step: (result, parser) => {
       const line = lineOf(text, newlines, result.meta.cursor);
       if (result.errors.length) {
-        parseError = new TomographyCsvError(line, null, result.errors[0].message);
+        // An unclosed quote swallows the rest of the file: name the line where the quote opened.
+        const [first] = result.errors;
+        const at = first.type === "Quotes" && typeof first.index === "number" ? lineOf(text, newlines, first.index + 1) : line;
+        parseError = new TomographyCsvError(at, null, first.message);
         parser.abort();
         return;
       }
@@ -125,7 +128,7 @@ function readHeader(record: { fields: string[]; line: number }, options: Tomogra
   const names = record.fields.map((f) => f.trim().toLowerCase());
   names.forEach((n, i) => {
     if (!(CSV_COLUMNS as readonly string[]).includes(n)) {
-      const hint = /^\d/.test(n) ? " — is the header line missing?" : "";
+      const hint = /^\d/.test(n) || /^[hvdarl]{1,4}$/.test(n) ? " — is the header line missing?" : "";
       throw new TomographyCsvError(record.line, record.fields[i].trim(), `unknown column (allowed: ${CSV_COLUMNS.join(", ")})${hint}`);
     }
     if (names.indexOf(n) !== i) throw new TomographyCsvError(record.line, n, "appears twice in the header");
