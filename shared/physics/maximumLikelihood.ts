@@ -6,10 +6,13 @@
  *    estimate (or the projected one). If that optimum is positive, it is the answer.
  * 2. Otherwise, and to confirm it, Newton in the Cholesky parametrisation σ = U T T† U† of
  *    James, Kwiat, Munro, White, Phys. Rev. A 64, 052312 (2001), §IV (T lower triangular with
- *    real diagonal), in the eigenbasis U of step 1's result, where the start is T = √Λ. Columns
- *    of T for eigenvalues that step 1 found negative start and stay at zero (the likely face of
- *    the cone). If the certificate below then fails, all columns are freed and the search
- *    goes on. Newton details: poissonNewton.ts, linalg/dampedNewton.ts.
+ *    real diagonal), in the eigenbasis U of the current estimate, where the start is T = √Λ.
+ *    Columns of T for eigenvalues ≤ 0 (step 1 found them negative) stay at zero: the search runs
+ *    on a face of the cone. Every few steps it re-bases in the new eigenbasis, dropping
+ *    directions whose eigenvalue has fallen to zero and adding the directions outside the
+ *    support along which the likelihood rises (negative eigenvalues of M^{-1/2} G M^{-1/2}
+ *    below); on a face where Newton has converged but the certificate fails, all such
+ *    directions are added. Newton details: poissonNewton.ts, linalg/dampedNewton.ts.
  *
  * Stopping rule — a certificate. NLL is convex in σ and its optimum lies on
  * S = {σ ⪰ 0 : Tr(Mσ) = N}, M = Σ_k w_k P_k, N = Σ_k n_k (scaling σ by s changes NLL by
@@ -45,6 +48,8 @@ const GAP_CHECK_FACTOR = 10;
 const STALL_FACTOR = 1e-6;
 /** Newton steps in one eigenbasis before re-basing. */
 const STEPS_PER_BASIS = 3;
+/** Bound on re-basings, so that a search that cannot move still ends. */
+const MAX_REBASES = MAX_ITERATIONS;
 
 export interface MleOptions {
   tolerance?: number;
@@ -78,7 +83,7 @@ export function maximumLikelihood(
   const mixed = () => fullRankStart(model, data, starts.positive());
   let sigma = unconstrainedOptimum(linear, data, [() => starts.linear, mixed], threshold, budget) ?? mixed();
   let search = positiveSearch(model, data, mInvSqrt, sigma, threshold, budget);
-  while (search.gap > threshold && budget.left > 0) {
+  for (let rebases = 0; search.gap > threshold && budget.left > 0 && rebases < MAX_REBASES; rebases++) {
     // Re-base in the current eigenbasis every few steps (directions that went to zero leave the
     // face); a face on which Newton has converged but the certificate fails is widened along the
     // directions that would raise the likelihood.
