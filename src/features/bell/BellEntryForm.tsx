@@ -9,6 +9,7 @@ import { Button } from "../../components/Button";
 import { Field, inputClass } from "../../components/Field";
 import { Panel } from "../../components/Panel";
 import { ValueWithError } from "../../components/ValueWithError";
+import { labPaths } from "../notebook/labPaths";
 import { BellAnglesForm } from "./BellAnglesForm";
 import { checkCount, pastedGrid } from "./countsCells";
 
@@ -62,7 +63,7 @@ export function BellEntryForm({ labId, sessionId }: { labId: string; sessionId: 
     }
     const search = `?a=${angles.aDeg}&a2=${angles.aPrimeDeg}&b=${angles.bDeg}&b2=${angles.bPrimeDeg}`;
     create.mutate(parsed.data, {
-      onSuccess: (run) => navigate(`/labs/${labId}/runs/${run.id}/bell-test${search}`),
+      onSuccess: (run) => navigate(`${labPaths.bellTest(labId, run.id)}${search}`),
       onError: (err) => setServerErrors(err instanceof ApiError ? err.fieldMessages() : {}),
     });
   };

@@ -10,6 +10,7 @@ import { Button } from "../../components/Button";
 import { Field, inputClass } from "../../components/Field";
 import { Panel } from "../../components/Panel";
 import { ValueWithError } from "../../components/ValueWithError";
+import { labPaths } from "../notebook/labPaths";
 import { checkCount, pastedGrid } from "../bell/countsCells";
 
 interface ScanDraft {
@@ -70,7 +71,7 @@ export function FringeEntryForm({ labId, sessionId }: { labId: string; sessionId
     const body = CreateRunSchema.safeParse({ kind: "fringe", settingSetId: "custom", name, rows });
     if (!body.success) return setServerErrors(Object.fromEntries(body.error.issues.map((i) => [i.path.join("."), i.message])));
     create.mutate(body.data, {
-      onSuccess: (run) => navigate(`/labs/${labId}/runs/${run.id}/fringe-fit`),
+      onSuccess: (run) => navigate(labPaths.fringeFit(labId, run.id)),
       onError: (err) => setServerErrors(err instanceof ApiError ? err.fieldMessages() : {}),
     });
   };

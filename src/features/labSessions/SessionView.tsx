@@ -27,7 +27,20 @@ export function SessionView({ labId, sessionId }: { labId: string; sessionId: st
             subtitle={`${s.date} · ${s.source.name}`}
             actions={
               <>
-                {s.can.write && <ButtonLink to={labPaths.newRun(labId, s.id)}>New run</ButtonLink>}
+                {s.can.write && <ButtonLink to={labPaths.newRun(labId, s.id)}>New tomography run</ButtonLink>}
+                {s.can.write && (
+                  <ButtonLink variant="secondary" to={labPaths.newBellTest(labId, s.id)}>
+                    New Bell test
+                  </ButtonLink>
+                )}
+                {s.can.write && (
+                  <ButtonLink variant="secondary" to={labPaths.newFringeScan(labId, s.id)}>
+                    New fringe scan
+                  </ButtonLink>
+                )}
+                <ButtonLink variant="secondary" to={labPaths.trends(labId, { sessionId: s.id })}>
+                  Trends
+                </ButtonLink>
                 <ShareExportActions labId={labId} itemType="session" itemId={s.id} can={s.can} />
               </>
             }

@@ -5,6 +5,12 @@ export const labPaths = {
   newSession: (labId: string, sourceId?: string) => `/labs/${labId}/sessions/new${sourceId ? `?sourceId=${sourceId}` : ""}`,
   session: (labId: string, sessionId: string) => `/labs/${labId}/sessions/${sessionId}`,
   newRun: (labId: string, sessionId: string) => `/labs/${labId}/sessions/${sessionId}/runs/new`,
+  newBellTest: (labId: string, sessionId: string) => `/labs/${labId}/sessions/${sessionId}/bell-test/new`,
+  newFringeScan: (labId: string, sessionId: string) => `/labs/${labId}/sessions/${sessionId}/fringe-scan/new`,
   run: (labId: string, runId: string) => `/labs/${labId}/runs/${runId}`,
+  bellTest: (labId: string, runId: string) => `/labs/${labId}/runs/${runId}/bell-test`,
+  fringeFit: (labId: string, runId: string) => `/labs/${labId}/runs/${runId}/fringe-fit`,
+  trends: (labId: string, scope?: { sessionId?: string; sourceId?: string }) =>
+    `/labs/${labId}/trends${scope?.sessionId ? `?sessionId=${scope.sessionId}` : scope?.sourceId ? `?sourceId=${scope.sourceId}` : ""}`,
   compare: (labId: string, runIds: string[] = []) => `/labs/${labId}/compare${runIds.length ? `?runs=${runIds.join(",")}` : ""}`,
 };
