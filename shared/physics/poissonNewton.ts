@@ -245,16 +245,15 @@ function couplings(d: number): Couplings {
         const src = i * d + l;
         const ar = i * i + 2 * j; // Re T_ij; Im T_ij follows when j < i
         const br = l * l + 2 * j;
-        const entries: [number, number, number][] = [[ar, br, 0]];
-        if (j < i && j < l) entries.push([ar + 1, br + 1, 0]);
-        if (j < i) entries.push([ar + 1, br, 1]);
-        if (j < l) entries.push([ar, br + 1, -1]);
-        for (const [a, b, sg] of entries) {
+        const put = (a: number, b: number, sg: number) => {
           target[e] = a >= b ? a * size + b : b * size + a;
           source[e] = src;
-          sign[e] = sg;
-          e++;
-        }
+          sign[e++] = sg;
+        };
+        put(ar, br, 0);
+        if (j < i && j < l) put(ar + 1, br + 1, 0);
+        if (j < i) put(ar + 1, br, 1);
+        if (j < l) put(ar, br + 1, -1);
       }
     }
   }

@@ -27,7 +27,8 @@ export class UnconstrainedPoisson implements NewtonProblem {
     this.mu = new Float64Array(linear.rows);
     this.change = new Float64Array(linear.rows);
     // w_k a_k, the gradient of μ_k
-    this.wa = linear.design.map((v, i) => v * data.weights[Math.floor(i / p)]);
+    this.wa = new Float64Array(linear.design.length);
+    for (let k = 0; k < linear.rows; k++) for (let j = 0; j < p; j++) this.wa[k * p + j] = linear.design[k * p + j] * data.weights[k];
   }
 
   /** μ and the gradient at x; false if some μ_k ≤ 0. */

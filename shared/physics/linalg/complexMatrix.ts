@@ -20,7 +20,9 @@ export interface CVector {
 }
 
 export function zeros(n: number): CMatrix {
-  return { n, re: new Float64Array(n * n), im: new Float64Array(n * n) };
+  // One allocation for both parts: typed-array allocation dominates for 4×4 matrices.
+  const buffer = new Float64Array(2 * n * n);
+  return { n, re: buffer.subarray(0, n * n), im: buffer.subarray(n * n) };
 }
 
 export function identity(n: number): CMatrix {
