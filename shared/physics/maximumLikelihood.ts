@@ -46,8 +46,12 @@ const FACE_THRESHOLD = 1e-9;
 const GAP_CHECK_FACTOR = 10;
 /** Steps lowering NLL by less than this multiple of the threshold have reached rounding level. */
 const STALL_FACTOR = 1e-6;
-/** Newton steps in one eigenbasis before re-basing. */
-const STEPS_PER_BASIS = 3;
+/**
+ * Newton steps in one eigenbasis before re-basing. A re-basing costs a few d×d eigen-
+ * decompositions: little next to a Newton step for three or four photons (where re-basing
+ * halved the steps of hard cases), as much as two Newton steps for one or two photons.
+ */
+const stepsPerBasis = (d: number) => (d >= 8 ? 3 : 12);
 /** Bound on re-basings, so that a search that cannot move still ends. */
 const MAX_REBASES = MAX_ITERATIONS;
 
@@ -142,9 +146,9 @@ function positiveSearch(
       stalled = lastDecrease <= STALL_FACTOR * threshold;
       if (gap <= threshold || stalled) break;
     }
-    const step = steps < STEPS_PER_BASIS && budget.left > 0 ? newton.step(theta) : null;
+    const step = steps < stepsPerBasis(d) && budget.left > 0 ? newton.step(theta) : null;
     if (!step) {
-      if (steps < STEPS_PER_BASIS) stalled = true;
+      if (steps < stepsPerBasis(d)) stalled = true;
       gap = problem.gap(rotatedInvSqrt);
       break;
     }
