@@ -1,7 +1,7 @@
 /**
  * Two-qubit entanglement measures (physics contract §6).
  */
-import { EigenvalueDecomposition } from "ml-matrix";
+import { complexEigenvalues } from "./linalg/complexEigenvalues";
 import { type CMatrix, conjugate, multiply, zeros } from "./linalg/complexMatrix";
 import { hermitianEigenvalues, hermitianFunction } from "./linalg/hermitianEigen";
 import { correlationTensor } from "./bell/prediction";
@@ -23,8 +23,8 @@ function yy(): CMatrix {
  * Physical ρ: the λ_i are the singular values of B = √ρ (σ_y⊗σ_y) √ρ*, obtained as the
  * non-negative eigenvalues of the Hermitian [[0, B], [B†, 0]] — no square root of a tiny
  * eigenvalue, so C is accurate to rounding. Non-physical ρ (√ρ undefined): the general
- * eigenvalues of ρρ̃ through ml-matrix's real non-symmetric EVD of the 8×8 real embedding;
- * each real part appears twice there; we use √max(0, Re λ). Flagged upstream.
+ * eigenvalues of ρρ̃ (our bounded Hessenberg-QR solver; ml-matrix's EVD can loop forever);
+ * we use √max(0, Re λ). Flagged upstream.
  */
 export function concurrence(rho: CMatrix, physical: boolean): number {
   const lambda = physical ? woottersPhysical(rho) : woottersGeneral(rho);
@@ -48,18 +48,8 @@ function woottersPhysical(rho: CMatrix): number[] {
 
 function woottersGeneral(rho: CMatrix): number[] {
   const z = multiply(rho, multiply(multiply(yy(), conjugate(rho)), yy()));
-  const real: number[][] = Array.from({ length: 8 }, () => new Array(8).fill(0));
-  // Subnormal entries are flushed to zero: ml-matrix's EVD fails on them.
-  const flush = (x: number) => (Math.abs(x) < 1e-300 ? 0 : x);
-  for (let i = 0; i < 4; i++) {
-    for (let j = 0; j < 4; j++) {
-      real[i][j] = real[i + 4][j + 4] = flush(z.re[i * 4 + j]);
-      real[i + 4][j] = flush(z.im[i * 4 + j]);
-      real[i][j + 4] = -flush(z.im[i * 4 + j]);
-    }
-  }
-  const parts = new EigenvalueDecomposition(real).realEigenvalues.sort((a, b) => b - a);
-  return [0, 2, 4, 6].map((i) => Math.sqrt(Math.max(0, parts[i])));
+  const parts = complexEigenvalues(z).map((v) => v.re).sort((a, b) => b - a);
+  return parts.map((x) => Math.sqrt(Math.max(0, x)));
 }
 
 /** ρ^{T_B} for a bipartition into dimA × dimB (photon A first). */
