@@ -20,6 +20,8 @@ export function readSessionBundle(text: string): BundleReadResult {
   } catch (e) {
     return { ok: false, problems: [{ field: "bundle", message: `The file is not valid JSON (${(e as Error).message}).` }] };
   }
+  const nul = pathOfNul(data);
+  if (nul !== null) return { ok: false, problems: [{ field: nul || "bundle", message: "This text contains a NUL character (\\u0000), which cannot be stored; remove it." }] };
   const parsed = SessionBundleSchema.safeParse(data);
   if (parsed.success) return { ok: true, bundle: parsed.data };
   const problems = parsed.error.issues.slice(0, MAX_PROBLEMS).map((issue) => ({
@@ -27,6 +29,18 @@ export function readSessionBundle(text: string): BundleReadResult {
     message: issue.message,
   }));
   return { ok: false, problems };
+}
+
+/** Dotted path of the first string (or key) holding U+0000, which PostgreSQL cannot store; else null. */
+function pathOfNul(value: unknown, path: string[] = []): string | null {
+  if (typeof value === "string") return value.includes("\u0000") ? path.join(".") : null;
+  if (!value || typeof value !== "object") return null;
+  for (const [key, v] of Object.entries(value)) {
+    if (key.includes("\u0000")) return [...path, key.replace(/\u0000/g, "\\u0000")].join(".");
+    const found = pathOfNul(v, [...path, key]);
+    if (found !== null) return found;
+  }
+  return null;
 }
 
 export function writeSessionBundle(bundle: SessionBundle): string {

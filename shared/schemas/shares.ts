@@ -24,13 +24,17 @@ export const SHARE_MAX_DAYS = 366;
 export const ShareParamsSchema = z.object({ labId: UuidSchema("Lab id"), shareId: UuidSchema("Share id") });
 export const GuestShareParamsSchema = z.object({ shareId: UuidSchema("Share id") });
 
+/** PostgreSQL text cannot hold U+0000; say so instead of failing on insert. */
+const noNul = (s: string) => !s.includes("\u0000");
+const NUL_MESSAGE = "This text contains a NUL character (\\u0000); remove it.";
+
 const ShareTargetFields = {
   itemType: ShareItemTypeSchema,
   itemId: UuidSchema("Item id"),
   /** When the share stops working (ISO date-time); null = until revoked. */
   expiresAt: z.iso.datetime({ offset: true, message: "Expiry must be a date and time, e.g. 2030-01-31T18:00:00Z." }).nullable().default(null),
   /** A note for the lab's own list, e.g. "for the partner group's referee report". */
-  label: z.string().trim().max(LIMITS.shortTextLength, `A label is at most ${LIMITS.shortTextLength} characters.`).default(""),
+  label: z.string().trim().max(LIMITS.shortTextLength, `A label is at most ${LIMITS.shortTextLength} characters.`).refine(noNul, NUL_MESSAGE).default(""),
 };
 
 export const CreateShareSchema = z.discriminatedUnion(
@@ -42,7 +46,7 @@ export const CreateShareSchema = z.discriminatedUnion(
       ...ShareTargetFields,
       email: EmailSchema,
       /** A line added to the invitation e-mail. */
-      message: z.string().trim().max(LIMITS.shortTextLength, `The message is at most ${LIMITS.shortTextLength} characters.`).default(""),
+      message: z.string().trim().max(LIMITS.shortTextLength, `The message is at most ${LIMITS.shortTextLength} characters.`).refine(noNul, NUL_MESSAGE).default(""),
     }),
   ],
   "Kind is link (a secret link) or guest (an invitation by e-mail).",

@@ -125,6 +125,7 @@ describe("session bundles", () => {
       ["revisions out of order", broken((b) => (b.runs[1].revisions[1].number = 5)), "runs.1.revisions.1.number"],
       ["a reconstruction of a missing revision", broken((b) => (b.runs[0].reconstructions[0].revisionNumber = 4)), "runs.0.reconstructions.0.revisionNumber"],
       ["ρ of the wrong size", broken((b) => b.runs[0].reconstructions[0].rho.re.pop()), "runs.0.reconstructions.0.rho"],
+      ["a NUL character in a name", broken((b) => (b.runs[0].name = "5 mW\u0000")), "runs.0.name"],
       ["a setting twice in a 16-setting run", broken((b) => (b.runs[0].revisions[0].rows[1].setting = b.runs[0].revisions[0].rows[0].setting)), "runs.0.revisions.0.rows.1.setting"],
     ];
     for (const [what, text, field] of cases) {

@@ -102,9 +102,11 @@ describe("shares", () => {
     expect(list.data.find((x) => x.id === made.id)?.status).toBe("expired");
   });
 
-  it("rejects an expiry in the past or too far ahead, naming the field", async () => {
+  it("rejects an expiry in the past or too far ahead, and a label PostgreSQL cannot store, naming the field", async () => {
     const past = await s.f.clients.member.post(`/api/labs/${s.lab}/shares`, { kind: "link", itemType: "run", itemId: s.runA.id, expiresAt: "2020-01-01T00:00:00Z" }).expect(400);
     expect(past.body.error.details).toEqual([{ field: "expiresAt", message: "The expiry must be in the future." }]);
+    const nul = await s.f.clients.member.post(`/api/labs/${s.lab}/shares`, { kind: "link", itemType: "run", itemId: s.runA.id, label: "for\u0000you" }).expect(400);
+    expect(nul.body.error.details[0].field).toBe("label");
     const far = await s.f.clients.member.post(`/api/labs/${s.lab}/shares`, { kind: "link", itemType: "run", itemId: s.runA.id, expiresAt: "2999-01-01T00:00:00Z" }).expect(400);
     expect(far.body.error.details[0].field).toBe("expiresAt");
   });
