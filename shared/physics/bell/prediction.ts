@@ -8,8 +8,8 @@
  * vectors in the x–z plane). The best value over all analysers (any unit vectors) is the
  * Horodecki maximum 2√(m₁ + m₂), m₁ ≥ m₂ the two largest eigenvalues of TᵀT (same paper).
  */
-import { EigenvalueDecomposition, Matrix } from "ml-matrix";
-import { type CMatrix, fromPlain } from "../linalg/complexMatrix";
+import { type CMatrix, fromPlain, zeros } from "../linalg/complexMatrix";
+import { hermitianEigenvalues } from "../linalg/hermitianEigen";
 import { pauliCoefficients } from "../pauliBasis";
 import type { DensityMatrix } from "../types";
 import { type BellAngles, type SettingPairName, settingPairs } from "./angles";
@@ -62,9 +62,14 @@ export function predictedChsh(rho: DensityMatrix | CMatrix, angles: BellAngles):
   return { correlations, s, maximum: horodeckiMaximum(t) };
 }
 
-/** 2√(m₁ + m₂) from the correlation tensor (Horodecki et al. 1995). */
+/**
+ * 2√(m₁ + m₂) from the correlation tensor (Horodecki et al. 1995), m₁ ≥ m₂ the two largest
+ * eigenvalues of TᵀT. Our Jacobi solver, not ml-matrix's EVD: that one throws on subnormal
+ * entries and never returns on a NaN.
+ */
 export function horodeckiMaximum(t: number[][]): number {
-  const tt = new Matrix(t).transpose().mmul(new Matrix(t));
-  const eig = new EigenvalueDecomposition(tt, { assumeSymmetric: true }).realEigenvalues.sort((a, b) => b - a);
-  return 2 * Math.sqrt(Math.max(0, eig[0] + eig[1]));
+  const m = zeros(3);
+  for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) for (let k = 0; k < 3; k++) m.re[i * 3 + j] += t[k][i] * t[k][j];
+  const ev = hermitianEigenvalues(m);
+  return 2 * Math.sqrt(Math.max(0, ev[0] + ev[1]));
 }
