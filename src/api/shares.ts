@@ -50,8 +50,8 @@ export function useSharedLink(token: string) {
   });
 }
 
-export function useGuestShares() {
-  return useQuery({ queryKey: shareKeys.guestList, queryFn: ({ signal }) => apiFetch<{ data: GuestShareDto[] }>("/guest/shares", { signal }).then((r) => r.data) });
+export function useGuestShares(enabled = true) {
+  return useQuery({ queryKey: shareKeys.guestList, enabled, queryFn: ({ signal }) => apiFetch<{ data: GuestShareDto[] }>("/guest/shares", { signal }).then((r) => r.data) });
 }
 
 export function useGuestShare(shareId: string) {

@@ -62,6 +62,19 @@ export function AccountMenu({ me }: { me: Me }) {
               People in this lab
             </Link>
           )}
+          {labId && (
+            <Link className={itemClass} to={`/labs/${labId}/shares`} onClick={close}>
+              Links and guests of this lab
+            </Link>
+          )}
+          {labId && (
+            <Link className={itemClass} to={`/labs/${labId}/import`} onClick={close}>
+              Import a session bundle
+            </Link>
+          )}
+          <Link className={itemClass} to="/shared-with-me" onClick={close}>
+            Shared with me
+          </Link>
           <Link className={itemClass} to="/tokens" onClick={close}>
             API tokens
           </Link>

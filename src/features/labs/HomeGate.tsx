@@ -1,6 +1,7 @@
 import { Navigate } from "react-router-dom";
 import { useMe } from "../../api/auth";
 import { useLabs } from "../../api/labs";
+import { useGuestShares } from "../../api/shares";
 import { ButtonLink } from "../../components/Button";
 import { QueryState } from "../../components/QueryState";
 import { Panel } from "../../components/Panel";
@@ -15,6 +16,7 @@ import { lastLabId } from "./lastLab";
 export function HomeGate({ signedOut }: { signedOut: React.ReactNode }) {
   const me = useMe();
   const labs = useLabs(!!me.data);
+  const guestShares = useGuestShares(!!me.data);
   if (me.isPending) return <p className="text-ink-faint" role="status">Loading…</p>;
   if (!me.data) {
     return (
@@ -37,6 +39,9 @@ export function HomeGate({ signedOut }: { signedOut: React.ReactNode }) {
         const last = lastLabId();
         const target = list.find((l) => l.id === last) ?? list[0];
         if (target) return <Navigate to={`/labs/${target.id}`} replace />;
+        // A collaborator outside any lab comes for what was shared with them.
+        if (guestShares.isPending) return <p className="text-ink-faint" role="status">Loading…</p>;
+        if (guestShares.data?.length) return <Navigate to="/shared-with-me" replace />;
         return (
           <div className="mx-auto max-w-xl">
             <PageTitle subtitle="A lab holds your sources, sessions, runs and reconstructions, and the people who share them.">Create your first lab</PageTitle>

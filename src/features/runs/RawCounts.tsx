@@ -5,7 +5,7 @@ import { DataTable } from "../../components/DataTable";
 
 type Row = RunDetailDto["rows"][number] & { index: number };
 
-const settingText = (s: string | z.infer<typeof ArmAnglesSchema>[]) =>
+export const settingText = (s: string | z.infer<typeof ArmAnglesSchema>[]) =>
   typeof s === "string" ? s : s.map((a, i) => `${i === 0 ? "A" : "B"}: Q ${formatDecimal(a.qwpDeg, 2)}°, H ${formatDecimal(a.hwpDeg, 2)}°${a.port === "reflected" ? " refl." : ""}`).join(" · ");
 
 /** The counts exactly as entered (current revision), their history and the uploaded file. */

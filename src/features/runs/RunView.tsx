@@ -1,12 +1,14 @@
+import { useState } from "react";
 import { Link } from "react-router-dom";
 import { useLabSession } from "../../api/labSessions";
 import { useRun } from "../../api/runs";
-import { ButtonLink } from "../../components/Button";
+import { Button, ButtonLink } from "../../components/Button";
 import { PageTitle } from "../../components/PageTitle";
 import { Panel } from "../../components/Panel";
 import { QueryState } from "../../components/QueryState";
 import { formatCount, formatDecimal } from "@shared/format/uncertainty";
 import { labPaths } from "../notebook/labPaths";
+import { CorrectCountsForm } from "./CorrectCountsForm";
 import { RawCounts } from "./RawCounts";
 import { RunStateView } from "./RunStateView";
 import { ShareExportActions } from "../sharing/ShareExportActions";
@@ -15,6 +17,7 @@ import { ShareExportActions } from "../sharing/ShareExportActions";
 export function RunView({ labId, runId }: { labId: string; runId: string }) {
   const run = useRun(labId, runId);
   const session = useLabSession(labId, run.data?.session.id ?? "");
+  const [correcting, setCorrecting] = useState(false);
   return (
     <QueryState query={run} what="the run">
       {(r) => (
@@ -53,8 +56,18 @@ export function RunView({ labId, runId }: { labId: string; runId: string }) {
             </p>
           )}
           <div className="mt-4">
-            <Panel title="Raw counts">
-              <RawCounts run={r} />
+            <Panel
+              title="Raw counts"
+              actions={
+                r.can.write &&
+                !correcting && (
+                  <Button variant="quiet" size="sm" onClick={() => setCorrecting(true)}>
+                    Correct counts…
+                  </Button>
+                )
+              }
+            >
+              {correcting ? <CorrectCountsForm labId={labId} run={r} onDone={() => setCorrecting(false)} /> : <RawCounts run={r} />}
             </Panel>
           </div>
         </>
