@@ -206,15 +206,20 @@ function unconstrainedOptimum(linear: LinearSystem, data: PreparedCounts, starts
   for (let k = 0; k < data.counts.length; k++) if (!(data.counts[k] > 0)) return null;
   const problem = new UnconstrainedPoisson(linear, data);
   const newton = new DampedNewton(problem);
+  // The feasible start of lowest NLL (with all counts positive the linear estimate usually is,
+  // and for a square system it is the optimum itself).
   let x: Float64Array | null = null;
+  let best = Infinity;
   for (const start of starts) {
     const candidate = pauliCoefficients(start(), linear.photons);
-    if (problem.evaluate(candidate)) {
+    if (!problem.evaluate(candidate)) continue;
+    const f = problem.value();
+    if (f < best) {
+      best = f;
       x = candidate;
-      break;
     }
   }
-  if (!x) return null;
+  if (!x || !problem.evaluate(x)) return null;
   do {
     const step = budget.left > 0 ? newton.step(x) : null;
     if (!step) break;

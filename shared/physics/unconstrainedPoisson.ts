@@ -47,6 +47,13 @@ export class UnconstrainedPoisson implements NewtonProblem {
     return true;
   }
 
+  /** NLL at the last evaluated point (meaningful only after evaluate() returned true). */
+  value(): number {
+    let f = 0;
+    for (let k = 0; k < this.linear.rows; k++) f += this.mu[k] - this.data.counts[k] * Math.log(this.mu[k]);
+    return f;
+  }
+
   buildHessian(): void {
     const { size: p, wa, mu, hessian: h, data } = this;
     const { nonzero, nonzeroStart } = this.linear;
