@@ -3,7 +3,7 @@
  * §4): minimise NLL(σ) = Σ_k [μ_k − n_k ln μ_k], μ_k = w_k ⟨ψ_k|σ|ψ_k⟩.
  *
  * 1. Newton on the convex NLL over all Hermitian σ (unconstrainedPoisson.ts), from the linear
- *    estimate (or the projected one). If that optimum is positive, it is the answer.
+ *    or the projected estimate. If that optimum is positive, it is the answer.
  * 2. Otherwise, and to confirm it, Newton in the Cholesky parametrisation σ = U T T† U† of
  *    James, Kwiat, Munro, White, Phys. Rev. A 64, 052312 (2001), §IV (T lower triangular with
  *    real diagonal), in the eigenbasis U of the current estimate, where the start is T = √Λ.
@@ -198,9 +198,9 @@ function outsideFraction(y: CMatrix, col: number, support: { values: Float64Arra
 }
 
 /**
- * Newton on the convex likelihood over all Hermitian σ (unconstrainedPoisson.ts) from the first
- * start with every μ_k > 0 (the linear estimate if it qualifies: for a square system it already
- * is the optimum, μ_k = n_k); null when some row has no counts (the problem is then unbounded).
+ * Newton on the convex likelihood over all Hermitian σ (unconstrainedPoisson.ts) from the start
+ * with every μ_k > 0 and the lowest NLL (for a square system the linear estimate, which already
+ * is the optimum: μ_k = n_k); null when some row has no counts (the problem is then unbounded).
  */
 function unconstrainedOptimum(linear: LinearSystem, data: PreparedCounts, starts: (() => CMatrix)[], threshold: number, budget: { left: number }): CMatrix | null {
   for (let k = 0; k < data.counts.length; k++) if (!(data.counts[k] > 0)) return null;
