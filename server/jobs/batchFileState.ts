@@ -7,13 +7,16 @@ import type { BatchFile } from "../entities/BatchFile";
 /**
  * Holds a transaction-level advisory lock on (lab, content SHA-256) while `work` runs on other
  * connections. The lock's transaction does nothing else; when it ends (or its connection dies
- * with a crashed worker) the lock is gone, so no crash can leave it held.
+ * with a crashed worker) the lock is gone, so no crash can leave it held. A second attempt at
+ * the same content waits at most `waitSeconds` for it and then fails (pg-boss retries later), so
+ * a stuck first attempt cannot pile up waiting workers behind it.
  */
-export async function withContentLock<T>(labId: string, sha256: string, work: () => Promise<T>): Promise<T> {
+export async function withContentLock<T>(labId: string, sha256: string, waitSeconds: number, work: () => Promise<T>): Promise<T> {
   const runner = db().createQueryRunner();
   await runner.connect();
   try {
     await runner.startTransaction();
+    await runner.query(`SET LOCAL lock_timeout = '${Math.max(1, Math.round(waitSeconds))}s'`);
     await runner.query("SELECT pg_advisory_xact_lock(hashtextextended($1, 0))", [`rhomb.batch-content:${labId}:${sha256}`]);
     try {
       return await work();

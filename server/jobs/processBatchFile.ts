@@ -1,4 +1,5 @@
 import { describeIssue, RunFileError, type FileIssue } from "@shared/formats/runJson";
+import { config } from "../config";
 import { db } from "../db/dataSource";
 import { Batch } from "../entities/Batch";
 import { BatchFile } from "../entities/BatchFile";
@@ -27,7 +28,7 @@ export async function processBatchFile(batchFileId: string, options: { finalAtte
   const file = await claim(batchFileId);
   if (!file) return;
   try {
-    await withContentLock(file.labId, file.sha256!, async () => {
+    await withContentLock(file.labId, file.sha256!, config().RHOMB_JOB_TIMEOUT_SECONDS / 2, async () => {
       const current = await db().getRepository(BatchFile).findOneByOrFail({ id: file.id });
       if (current.status !== "processing") return;
       const batch = await db().getRepository(Batch).findOneByOrFail({ id: file.batchId });

@@ -1,4 +1,5 @@
 import "reflect-metadata";
+import { constants, setPriority } from "node:os";
 import { config } from "../config";
 import { createDataSource, setDataSource } from "../db/dataSource";
 import { logger } from "../logger";
@@ -12,6 +13,9 @@ import { startBatchWorkers } from "./workers";
  * queue for another worker), then it exits.
  */
 async function main(): Promise<void> {
+  // Batch work yields the CPU to the web process on the same machine: a lower scheduling
+  // priority, set before any thread starts, so the Monte Carlo threads inherit it (Linux).
+  setPriority(constants.priority.PRIORITY_BELOW_NORMAL);
   const cfg = config();
   const dataSource = createDataSource(cfg.DATABASE_URL, { applicationName: "rhomb-worker", poolSize: cfg.RHOMB_WORKER_CONCURRENCY * 2 + 2 });
   await dataSource.initialize();

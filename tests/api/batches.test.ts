@@ -8,6 +8,7 @@ import type { CountsRow } from "@shared/physics/types";
 import { Run } from "../../server/entities/Run";
 import { startBatchWorkers } from "../../server/jobs/workers";
 import { stopJobQueue } from "../../server/jobs/queue";
+import { withContentLock } from "../../server/jobs/batchFileState";
 import { labWithRoles, type LabFixture } from "../support/clients";
 import { psiMinusRows, sessionIn } from "../support/notebook";
 import { fileNamed, runJson, uploadBatch, waitForBatch } from "../support/batches";
@@ -128,5 +129,19 @@ describe("batch uploads", () => {
     const list = await f.clients.viewer.get(`/api/labs/${f.lab.id}/batches?sessionId=${sessionId}`).expect(200);
     expect(list.body.data.length).toBeGreaterThanOrEqual(3);
     await f.clients.outsider.get(`/api/labs/${f.lab.id}/batches/${firstBatchId}`).expect(404);
+  });
+
+  it("lets a second attempt at the same content wait only so long for the first (then it is retried later)", async () => {
+    let release!: () => void;
+    const first = withContentLock(f.lab.id, "a".repeat(64), 10, () => new Promise<void>((r) => (release = r)));
+    await new Promise((r) => setTimeout(r, 200));
+    const started = Date.now();
+    await expect(withContentLock(f.lab.id, "a".repeat(64), 1, async () => "ran")).rejects.toThrow(/lock timeout/);
+    expect(Date.now() - started).toBeGreaterThanOrEqual(900);
+    // Other content is not held up, and the lock is free again once the first attempt ends.
+    await expect(withContentLock(f.lab.id, "b".repeat(64), 1, async () => "ran")).resolves.toBe("ran");
+    release();
+    await first;
+    await expect(withContentLock(f.lab.id, "a".repeat(64), 1, async () => "ran")).resolves.toBe("ran");
   });
 });
