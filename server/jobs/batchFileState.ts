@@ -16,12 +16,18 @@ export async function withContentLock<T>(labId: string, sha256: string, waitSeco
   await runner.connect();
   try {
     await runner.startTransaction();
-    await runner.query(`SET LOCAL lock_timeout = '${Math.max(1, Math.round(waitSeconds))}s'`);
-    await runner.query("SELECT pg_advisory_xact_lock(hashtextextended($1, 0))", [`rhomb.batch-content:${labId}:${sha256}`]);
+    try {
+      await runner.query(`SET LOCAL lock_timeout = '${Math.max(1, Math.round(waitSeconds))}s'`);
+      await runner.query("SELECT pg_advisory_xact_lock(hashtextextended($1, 0))", [`rhomb.batch-content:${labId}:${sha256}`]);
+    } catch (e) {
+      // The failed statement aborted the transaction: end it before the connection goes back to the pool.
+      await runner.rollbackTransaction().catch(() => undefined);
+      throw e;
+    }
     try {
       return await work();
     } finally {
-      await runner.commitTransaction().catch(() => undefined);
+      await runner.commitTransaction().catch(() => runner.rollbackTransaction().catch(() => undefined));
     }
   } finally {
     await runner.release();
