@@ -1,6 +1,7 @@
 import { createHash } from "node:crypto";
 import { ZodError } from "zod";
 import { parseTomographyCsv, TomographyCsvError } from "@shared/formats/tomographyCsv";
+import { decodeUtf8Text } from "@shared/formats/utf8Text";
 import { standardSet, type StandardSetId } from "@shared/physics";
 import { CreateRunSchema, type SettingSetId, type UploadRunFields } from "@shared/schemas/runs";
 import type { AuthUser } from "../http/auth";
@@ -32,10 +33,11 @@ export async function uploadRun(user: AuthUser, labId: string, sessionId: string
     if (e instanceof TomographyCsvError) throw fileError(e.message, e.row, e.column);
     throw e;
   }
-  const labels = parsed.rows.map((r) => r.setting as string);
+  const kind = fields.kind ?? "tomography";
+  const labels = parsed.rows.every((r) => typeof r.setting === "string") ? parsed.rows.map((r) => r.setting as string) : null;
   const input = {
-    kind: "tomography",
-    settingSetId: fields.settingSetId ?? recogniseSet(labels),
+    kind,
+    settingSetId: fields.settingSetId ?? (labels && kind === "tomography" ? recogniseSet(labels) : "custom"),
     name: fields.name ?? (file.originalname.replace(/\.[^.]*$/, "").trim().slice(0, 120) || "Uploaded run"),
     notes: fields.notes ?? parsed.comments.join("\n"),
     conditions: { pumpPowerMw: fields.pumpPowerMw ?? null },
@@ -57,11 +59,9 @@ export async function uploadRun(user: AuthUser, labId: string, sessionId: string
 }
 
 function decodeUtf8(buffer: Buffer): string {
-  try {
-    return new TextDecoder("utf-8", { fatal: true }).decode(buffer);
-  } catch {
-    throw invalid("file", "The file is not UTF-8 text; save it as CSV (UTF-8) and upload again.");
-  }
+  const decoded = decodeUtf8Text(buffer);
+  if (!decoded.ok) throw invalid("file", `The file is not UTF-8 text (${decoded.reason}); save it as CSV (UTF-8) and upload again.`);
+  return decoded.text;
 }
 
 /** tomo16 or tomo36 when the labels are exactly that set (in any order), else custom. */
@@ -76,12 +76,20 @@ function fileError(message: string, line: number | null, column: string | null):
 
 const CSV_COLUMN: Record<string, string> = { setting: "basis", counts: "counts", seconds: "seconds", singlesA: "singles_a", singlesB: "singles_b", monitor: "monitor" };
 
+/** rows.i.setting.j.qwpDeg → the file's column arm_<letter>_qwp_deg. */
+function angleColumn(path: PropertyKey[]): string | null {
+  const [, , field, arm, plate] = path;
+  if (field !== "setting" || typeof arm !== "number") return null;
+  const letter = "abcd"[arm];
+  return plate === "qwpDeg" ? `arm_${letter}_qwp_deg` : plate === "hwpDeg" ? `arm_${letter}_hwp_deg` : plate === "port" ? `arm_${letter}_port` : null;
+}
+
 /** Schema issues on rows.i.field → the file's line and CSV column. */
 function rowIssues(error: ZodError, lines: number[]): HttpError {
   const details = error.issues.map((issue) => {
     const [head, index, field] = issue.path;
     if (head === "rows" && typeof index === "number") {
-      const column = typeof field === "string" ? CSV_COLUMN[field] ?? field : null;
+      const column = angleColumn(issue.path) ?? (typeof field === "string" ? CSV_COLUMN[field] ?? field : null);
       const where = column ? `row ${lines[index]}, column "${column}"` : `row ${lines[index]}`;
       return { field: "file", message: `${where}: ${issue.message}`, line: lines[index], ...(column && { column }) };
     }

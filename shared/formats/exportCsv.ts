@@ -5,7 +5,7 @@
  *   reads (shared/formats/tomographyCsv.ts): `#` comment lines saying what the file is, then
  *   `basis,counts,seconds[,singles_a,singles_b][,monitor]`. When rows were entered as waveplate
  *   angles, `basis` is empty for them and `arm_a_qwp_deg,arm_a_hwp_deg,arm_a_port,…` follow it
- *   (the upload does not read that variant).
+ *   (the upload reads that variant back too).
  * rho.csv — one line per element of ρ: `row,column,re,im,sigma_re,sigma_im` (basis states such as
  *   HV; σ empty without Monte Carlo samples).
  * metrics.csv — one line per reconstruction: where it comes from, the method and its corrections,

@@ -14,18 +14,26 @@
  * - counts and singles: whole numbers 0 … 10^15 written as digits; seconds > 0 and ≤ 10^7;
  *   monitor > 0. A repeated setting is rejected (usually a copy-paste slip) unless the caller
  *   allows repeats.
+ * - Settings as waveplate angles instead of a label: leave `basis` out (or empty on the row) and
+ *   give `arm_a_qwp_deg,arm_a_hwp_deg[,arm_a_port]` and the same for arm b (c, d for more
+ *   photons): the angles turned in each arm, degrees, and the PBS port counted (`transmitted`,
+ *   the default, or `reflected`). This is how Bell tests and fringe scans at arbitrary polariser
+ *   angles are written, and how the counts export writes rows that were entered as angles.
  * - Delimiter: comma, or semicolon/tab as spreadsheets in some locales write them.
  * Errors name the row (the line number in the file, as an editor shows it) and the column:
  *   row 7, column "counts": "12x" is not a whole number ≥ 0
  */
 import Papa from "papaparse";
-import type { CountsRow } from "../physics/types";
+import type { ArmAngles, CountsRow, Port } from "../physics/types";
 
 /** Same limits as the run schema (shared/schemas/runs.ts). */
 export const CSV_COUNTS_MAX = 1e15;
 export const CSV_SECONDS_MAX = 1e7;
-export const CSV_COLUMNS = ["basis", "counts", "seconds", "singles_a", "singles_b", "monitor"] as const;
+export const CSV_ANGLE_ARMS = ["a", "b", "c", "d"] as const;
+const ANGLE_COLUMNS = CSV_ANGLE_ARMS.flatMap((a) => [`arm_${a}_qwp_deg`, `arm_${a}_hwp_deg`, `arm_${a}_port`] as const);
+export const CSV_COLUMNS = ["basis", "counts", "seconds", "singles_a", "singles_b", "monitor", ...ANGLE_COLUMNS] as const;
 type Column = (typeof CSV_COLUMNS)[number];
+const ANGLE_LIMIT_DEG = 720;
 
 export interface TomographyCsvOptions {
   /** Every row must carry singles (for accidental subtraction). */
@@ -80,6 +88,7 @@ export function parseTomographyCsv(input: string, options: TomographyCsvOptions 
     throw new TomographyCsvError(1, null, "the file is empty (expected a header with at least basis,counts)");
   }
   const header = readHeader(records[0], options);
+  const anglesArms = angleArmsOf(header, records[0].line);
   if (records.length === 1) throw new TomographyCsvError(records[0].line, null, "there are no data rows after the header");
 
   const rows: CountsRow[] = [];
@@ -92,18 +101,19 @@ export function parseTomographyCsv(input: string, options: TomographyCsvOptions 
     }
     const value = (c: Column) => fields[header.indexOf(c)]?.trim() ?? "";
     const basis = value("basis").toUpperCase();
-    if (!/^[HVDARL]{1,4}$/.test(basis)) {
-      throw new TomographyCsvError(line, "basis", `${quote(value("basis"))} is not 1–4 letters from H, V, D, A, R, L (photon A first)`);
+    const setting = basis === "" && anglesArms > 0 ? angleSetting(value, anglesArms, line) : labelSetting(basis, value("basis"), line);
+    const label = typeof setting === "string";
+    const what = label ? `"${setting}"` : "these waveplate angles";
+    if (photons === 0) photons = setting.length;
+    else if (setting.length !== photons) {
+      throw new TomographyCsvError(line, label ? "basis" : null, `${what} name${label ? "s" : ""} ${setting.length} photon(s) but row ${lines[0]} names ${photons}`);
     }
-    if (photons === 0) photons = basis.length;
-    else if (basis.length !== photons) {
-      throw new TomographyCsvError(line, "basis", `"${basis}" names ${basis.length} photon(s) but row ${lines[0]} names ${photons}`);
+    const key = label ? setting : JSON.stringify(setting);
+    if (seen.has(key) && !options.allowRepeats) {
+      throw new TomographyCsvError(line, label ? "basis" : null, `${what} repeat${label ? "s" : ""} row ${seen.get(key)}`);
     }
-    if (seen.has(basis) && !options.allowRepeats) {
-      throw new TomographyCsvError(line, "basis", `"${basis}" repeats row ${seen.get(basis)}`);
-    }
-    seen.set(basis, line);
-    const row: CountsRow = { setting: basis, counts: wholeNumber(value("counts"), line, "counts", true)! };
+    seen.set(key, line);
+    const row: CountsRow = { setting, counts: wholeNumber(value("counts"), line, "counts", true)! };
     if (header.includes("seconds")) row.seconds = positiveNumber(value("seconds"), line, "seconds", CSV_SECONDS_MAX, true);
     if (header.includes("singles_a")) {
       const a = wholeNumber(value("singles_a"), line, "singles_a", !!options.requireSingles);
@@ -129,12 +139,13 @@ function readHeader(record: { fields: string[]; line: number }, options: Tomogra
   names.forEach((n, i) => {
     if (!(CSV_COLUMNS as readonly string[]).includes(n)) {
       const hint = /^\d/.test(n) || /^[hvdarl]{1,4}$/.test(n) ? " — is the header line missing?" : "";
-      throw new TomographyCsvError(record.line, record.fields[i].trim(), `unknown column (allowed: ${CSV_COLUMNS.join(", ")})${hint}`);
+      throw new TomographyCsvError(record.line, record.fields[i].trim(), `unknown column (allowed: basis, counts, seconds, singles_a, singles_b, monitor, arm_a_qwp_deg, arm_a_hwp_deg, arm_a_port, … for arms a–d)${hint}`);
     }
     if (names.indexOf(n) !== i) throw new TomographyCsvError(record.line, n, "appears twice in the header");
   });
-  for (const required of ["basis", "counts"] as const) {
-    if (!names.includes(required)) throw new TomographyCsvError(record.line, required, "missing from the header (it needs at least basis,counts)");
+  if (!names.includes("counts")) throw new TomographyCsvError(record.line, "counts", "missing from the header (it needs at least basis,counts)");
+  if (!names.includes("basis") && !names.includes("arm_a_qwp_deg")) {
+    throw new TomographyCsvError(record.line, "basis", "missing from the header (it needs basis,counts, or waveplate angles arm_a_qwp_deg,arm_a_hwp_deg,… and counts)");
   }
   const hasA = names.includes("singles_a");
   const hasB = names.includes("singles_b");
@@ -143,6 +154,47 @@ function readHeader(record: { fields: string[]; line: number }, options: Tomogra
     throw new TomographyCsvError(record.line, "singles_a", "missing from the header; accidental subtraction needs singles_a and singles_b");
   }
   return names as Column[];
+}
+
+/** How many arms the header gives angles for (arms a, b, … in order, each with qwp and hwp). */
+function angleArmsOf(header: Column[], line: number): number {
+  let arms = 0;
+  for (const arm of CSV_ANGLE_ARMS) {
+    const qwp = header.includes(`arm_${arm}_qwp_deg`);
+    const hwp = header.includes(`arm_${arm}_hwp_deg`);
+    const port = header.includes(`arm_${arm}_port`);
+    if (!qwp && !hwp && !port) break;
+    if (!qwp || !hwp) throw new TomographyCsvError(line, qwp ? `arm_${arm}_hwp_deg` : `arm_${arm}_qwp_deg`, `missing from the header (arm ${arm.toUpperCase()} needs both waveplate angles)`);
+    arms++;
+  }
+  const extra = header.find((c) => c.startsWith("arm_") && !CSV_ANGLE_ARMS.slice(0, arms).some((a) => c.startsWith(`arm_${a}_`)));
+  if (extra) throw new TomographyCsvError(line, extra, "arms must be given in order a, b, c, d without gaps");
+  return arms;
+}
+
+function labelSetting(basis: string, raw: string, line: number): string {
+  if (!/^[HVDARL]{1,4}$/.test(basis)) {
+    throw new TomographyCsvError(line, "basis", `${quote(raw)} is not 1–4 letters from H, V, D, A, R, L (photon A first)`);
+  }
+  return basis;
+}
+
+function angleSetting(value: (c: Column) => string, arms: number, line: number): ArmAngles[] {
+  return CSV_ANGLE_ARMS.slice(0, arms).map((arm) => {
+    const angle = (c: Column) => {
+      const raw = value(c);
+      const n = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(raw) ? Number(raw) : NaN;
+      if (raw === "") throw new TomographyCsvError(line, c, "empty (give the angle in degrees, or a basis label in the basis column)");
+      if (!Number.isFinite(n) || Math.abs(n) > ANGLE_LIMIT_DEG) throw new TomographyCsvError(line, c, `${quote(raw)} is not an angle in degrees between −${ANGLE_LIMIT_DEG} and ${ANGLE_LIMIT_DEG}`);
+      return n;
+    };
+    const portRaw = value(`arm_${arm}_port` as Column).toLowerCase();
+    if (portRaw !== "" && portRaw !== "transmitted" && portRaw !== "reflected") {
+      throw new TomographyCsvError(line, `arm_${arm}_port`, `${quote(portRaw)} is not a PBS port (transmitted or reflected)`);
+    }
+    const port: Port = portRaw === "reflected" ? "reflected" : "transmitted";
+    return { qwpDeg: angle(`arm_${arm}_qwp_deg` as Column), hwpDeg: angle(`arm_${arm}_hwp_deg` as Column), port };
+  });
 }
 
 function wholeNumber(raw: string, line: number, column: Column, required: boolean): number | undefined {

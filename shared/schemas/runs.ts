@@ -90,11 +90,15 @@ function checkRowsAgainstSet(settingSetId: SettingSetId, kind: RunKind, rows: Co
   }
 }
 
+/** Files and scripts can carry "\u0000", which PostgreSQL cannot store in text. */
+const noNul = (s: string) => !s.includes("\u0000");
+const NUL_MESSAGE = "Holds a NUL character (\\u0000), which cannot be stored; remove it.";
+
 const RunFieldsSchema = z.object({
   kind: RunKindSchema.default("tomography"),
   settingSetId: SettingSetIdSchema,
-  name: z.string().trim().min(1, "Give the run a name, e.g. “5 mW”.").max(LIMITS.nameLength, `At most ${LIMITS.nameLength} characters.`),
-  notes: z.string().max(LIMITS.notesLength, `Notes are at most ${LIMITS.notesLength} characters.`).default(""),
+  name: z.string().trim().min(1, "Give the run a name, e.g. “5 mW”.").max(LIMITS.nameLength, `At most ${LIMITS.nameLength} characters.`).refine(noNul, NUL_MESSAGE),
+  notes: z.string().max(LIMITS.notesLength, `Notes are at most ${LIMITS.notesLength} characters.`).refine(noNul, NUL_MESSAGE).default(""),
   conditions: RunConditionsSchema.default({ pumpPowerMw: null, crystalTemperatureC: null, compensatorTiltDeg: null }),
   rows: RowsSchema,
 });
@@ -127,16 +131,19 @@ export type CreateRevision = z.infer<typeof CreateRevisionSchema>;
 
 /**
  * Fields sent with a CSV upload (multipart form fields beside `file`, our counts CSV; see README
- * "Run file format"). Without settingSetId the set is recognised from the rows (tomo16, tomo36,
- * else custom); without name the file name is used.
+ * "Run file format"). Without settingSetId a tomography set is recognised from the labels
+ * (tomo16, tomo36, else custom; Bell tests and fringe scans are custom); without name the file
+ * name is used.
  */
 export const UploadRunFieldsSchema = z.object({
+  /** What the file holds: tomography (default), a Bell test or a fringe scan. */
+  kind: RunKindSchema.default("tomography"),
   name: RunFieldsSchema.shape.name.optional(),
   notes: z.string().max(LIMITS.notesLength, `Notes are at most ${LIMITS.notesLength} characters.`).optional(),
   settingSetId: SettingSetIdSchema.optional(),
   pumpPowerMw: z.coerce.number("Pump power must be a number.").min(0, "Pump power cannot be negative.").optional(),
 });
-export type UploadRunFields = z.infer<typeof UploadRunFieldsSchema>;
+export type UploadRunFields = z.input<typeof UploadRunFieldsSchema>;
 
 export const RunListQuerySchema = listQuery(["createdAt", "name", "kind", "fidelity", "concurrence", "purity", "pumpPowerMw"], "createdAt").extend({
   sessionId: UuidSchema("Session").optional(),

@@ -2,6 +2,8 @@ import { createHash } from "node:crypto";
 import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { LIMITS } from "@shared/limits";
+import { simulateCounts } from "@shared/physics";
+import { STANDARD_BELL_ANGLES, bellDiagonalState, bellTestSettings } from "@shared/physics/bell";
 import { CreateRunSchema, RunDetailSchema } from "@shared/schemas/runs";
 import type { User } from "../../server/entities/User";
 import { createRun } from "../../server/services/runs";
@@ -121,5 +123,49 @@ describe("counts file upload", () => {
   it("viewers cannot upload; outsiders get 404", async () => {
     await f.clients.viewer.post(url).attach("file", Buffer.from(csv()), { filename: "v.csv" }).expect(403);
     await f.clients.outsider.post(url).attach("file", Buffer.from(csv()), { filename: "o.csv" }).expect(404);
+  });
+});
+
+describe("a Bell test uploaded as a counts file with waveplate angles", () => {
+  let t: TestApp;
+  let f: LabFixture;
+  let sessionId: string;
+  beforeAll(async () => {
+    t = await startTestApp();
+    f = await labWithRoles(t);
+    ({ sessionId } = await sessionIn(f));
+  });
+  afterAll(() => t.close());
+
+  it("stores a bell run from arm_*_qwp_deg/arm_*_hwp_deg columns and its CHSH value is 2√2 for φ⁺", async () => {
+    // φ⁺ at the standard angles gives S = 2√2 (Clauser, Horne, Shimony, Holt, PRL 23, 880 (1969);
+    // Tsirelson, Lett. Math. Phys. 4, 93 (1980)); noiseless expectations at a high rate, rounded.
+    const settings = bellTestSettings(STANDARD_BELL_ANGLES);
+    const rows = simulateCounts({ rho: bellDiagonalState(1, -1, 1), settings, pairRate: 1e9, seconds: 1, seed: 1, noiseless: true });
+    const lines = ["# invented test data: φ⁺ at the standard CHSH angles", "arm_a_qwp_deg,arm_a_hwp_deg,arm_b_qwp_deg,arm_b_hwp_deg,counts"];
+    for (const r of rows) {
+      const [a, b] = r.setting as Array<{ qwpDeg: number; hwpDeg: number }>;
+      lines.push([a.qwpDeg, a.hwpDeg, b.qwpDeg, b.hwpDeg, Math.round(r.counts)].join(","));
+    }
+    const res = await f.clients.member
+      .post(`/api/labs/${f.lab.id}/sessions/${sessionId}/runs/upload`)
+      .field("kind", "bell")
+      .attach("file", Buffer.from(lines.join("\n")), { filename: "chsh.csv", contentType: "text/csv" })
+      .expect(201);
+    const run = RunDetailSchema.parse(res.body);
+    expect(run).toMatchObject({ kind: "bell", settingSetId: "custom", rowCount: 16 });
+    const bell = await f.clients.viewer.get(`/api/labs/${f.lab.id}/runs/${run.id}/bell-test`).expect(200);
+    expect(bell.body.s).toBeCloseTo(2 * Math.SQRT2, 6);
+  });
+
+  it("names the file's row and column when an angle is not a number, and stores nothing", async () => {
+    const before = await t.dataSource.getRepository(Run).count();
+    const res = await f.clients.member
+      .post(`/api/labs/${f.lab.id}/sessions/${sessionId}/runs/upload`)
+      .field("kind", "bell")
+      .attach("file", Buffer.from("arm_a_qwp_deg,arm_a_hwp_deg,arm_b_qwp_deg,arm_b_hwp_deg,counts\n0,0,0,11.25,100\n0,45,0,zz,90\n"), { filename: "bad.csv", contentType: "text/csv" })
+      .expect(400);
+    expect(res.body.error.details[0]).toMatchObject({ field: "file", line: 3, column: "arm_b_hwp_deg" });
+    expect(await t.dataSource.getRepository(Run).count()).toBe(before);
   });
 });

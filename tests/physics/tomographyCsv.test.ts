@@ -49,7 +49,7 @@ describe("refused input names the row and the column", () => {
     ["header without data", "basis,counts\n", "row 1: there are no data rows after the header"],
     ["missing counts column", "basis,seconds\nHH,1\n", 'row 1, column "counts": missing from the header (it needs at least basis,counts)'],
     ["missing header line", "HH,12\nHV,3\n", /^row 1, column "HH": unknown column/],
-    ["unknown column", "basis,counts,singels_a\nHH,1,2\n", /^row 1, column "singels_a": unknown column \(allowed: basis, counts, seconds, singles_a, singles_b, monitor\)/],
+    ["unknown column", "basis,counts,singels_a\nHH,1,2\n", /^row 1, column "singels_a": unknown column \(allowed: basis, counts, seconds, singles_a, singles_b, monitor, arm_a_qwp_deg, arm_a_hwp_deg, arm_a_port, … for arms a–d\)/],
     ["column twice", "basis,counts,counts\nHH,1,2\n", 'row 1, column "counts": appears twice in the header'],
     ["one singles column", "basis,counts,singles_a\nHH,1,2\n", 'row 1, column "singles_b": missing from the header (singles_a and singles_b come together)'],
     ["text in counts", `${header}\nHH,5,1,1,1\nHV,5,1,1,1\nVH,5,1,1,1\nVV,5,1,1,1\nDD,5,1,1,1\nRR,12x,1,1,1\n`, 'row 7, column "counts": "12x" is not a whole number ≥ 0'],
@@ -90,5 +90,37 @@ describe("refused input names the row and the column", () => {
 
   it("repeats are accepted when the caller allows them", () => {
     expect(parseTomographyCsv("basis,counts\nHH,3\nHH,4\n", { allowRepeats: true }).rows).toHaveLength(2);
+  });
+});
+
+describe("counts CSV with waveplate angles instead of labels (our format, README 'Run file format')", () => {
+  it("reads each arm's QWP and HWP angles and port, as Bell tests and fringe scans need", () => {
+    const text = [
+      "arm_a_qwp_deg,arm_a_hwp_deg,arm_b_qwp_deg,arm_b_hwp_deg,arm_b_port,counts,seconds",
+      "0,0,22.5,11.25,transmitted,812,10",
+      "0,0,22.5,11.25,reflected,95,10",
+    ].join("\n");
+    const parsed = parseTomographyCsv(text);
+    expect(parsed.photons).toBe(2);
+    expect(parsed.rows[0].setting).toEqual([
+      { qwpDeg: 0, hwpDeg: 0, port: "transmitted" },
+      { qwpDeg: 22.5, hwpDeg: 11.25, port: "transmitted" },
+    ]);
+    expect(parsed.rows[1].setting).toEqual([
+      { qwpDeg: 0, hwpDeg: 0, port: "transmitted" },
+      { qwpDeg: 22.5, hwpDeg: 11.25, port: "reflected" },
+    ]);
+  });
+
+  it("mixes label rows and angle rows (basis empty on the angle rows), as the counts export writes them", () => {
+    const parsed = parseTomographyCsv("basis,arm_a_qwp_deg,arm_a_hwp_deg,arm_b_qwp_deg,arm_b_hwp_deg,counts\nHV,,,,,100\n,0,22.5,0,0,50\n");
+    expect(parsed.rows.map((r) => r.setting)).toEqual(["HV", [{ qwpDeg: 0, hwpDeg: 22.5, port: "transmitted" }, { qwpDeg: 0, hwpDeg: 0, port: "transmitted" }]]);
+  });
+
+  it("names the row and column of a bad angle or port, and a header with only one plate of an arm", () => {
+    expect(() => parseTomographyCsv("arm_a_qwp_deg,arm_a_hwp_deg,counts\n0,x,5\n")).toThrow('row 2, column "arm_a_hwp_deg": "x" is not an angle in degrees');
+    expect(() => parseTomographyCsv("arm_a_qwp_deg,arm_a_hwp_deg,arm_a_port,counts\n0,0,left,5\n")).toThrow('row 2, column "arm_a_port": "left" is not a PBS port');
+    expect(() => parseTomographyCsv("arm_a_qwp_deg,counts\n0,5\n")).toThrow('row 1, column "arm_a_hwp_deg": missing from the header');
+    expect(() => parseTomographyCsv("arm_a_qwp_deg,arm_a_hwp_deg,counts\n0,0,5\n0,0,6\n")).toThrow("row 3: these waveplate angles repeat row 2");
   });
 });
