@@ -6,6 +6,7 @@ import { BatchFile } from "../entities/BatchFile";
 import { User } from "../entities/User";
 import type { AuthUser } from "../http/auth";
 import { HttpError } from "../http/errors";
+import { toHttpError } from "../http/errorMiddleware";
 import { logger } from "../logger";
 import { runPolicy } from "../policies/runs";
 import { createRun } from "../services/runs";
@@ -45,12 +46,23 @@ export async function processBatchFile(batchFileId: string, options: { finalAtte
   } catch (e) {
     const issues = fileIssues(e, file);
     if (issues) return markFailed(file, issues);
-    if (options.finalAttempt) {
-      logger.error({ err: e, batchFileId }, "batch file failed on its last attempt");
-      return markFailed(file, [{ row: null, column: null, message: `could not be processed after ${file.attempts} attempts (${(e as Error).message}); nothing was stored — upload it again` }]);
-    }
-    throw e;
+    if (isTransient(e) && !options.finalAttempt) throw e;
+    logger.error({ err: e, batchFileId, attempts: file.attempts }, "batch file failed");
+    const why = isTransient(e) ? `could not be processed after ${file.attempts} attempts` : "could not be reconstructed because of an internal error (logged on the server)";
+    return markFailed(file, [{ row: null, column: null, message: `${why}: ${(e as Error).message}. Nothing was stored — upload it again later.` }]);
   }
+}
+
+/**
+ * Failures worth another attempt: the database away or busy (a lock wait that timed out, a
+ * deadlock). Anything else — an engine error, a bug — would fail the same way again, so the file
+ * fails at once instead of costing four more reconstructions. (A worker that dies mid-job needs
+ * no rule here: pg-boss retries its job after the job timeout.)
+ */
+const TRANSIENT_CODES = new Set(["55P03", "40P01", "40001"]);
+function isTransient(e: unknown): boolean {
+  const code = (e as { code?: string; driverError?: { code?: string } })?.driverError?.code ?? (e as { code?: string })?.code;
+  return (code !== undefined && TRANSIENT_CODES.has(code)) || toHttpError(e).status === 503;
 }
 
 /** Marks the file as being processed (one more attempt); null when it is already finished. */
