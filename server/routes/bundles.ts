@@ -1,5 +1,6 @@
 import multer from "multer";
 import { BUNDLE_LIMITS } from "@shared/schemas/bundle";
+import { decodeUtf8Text } from "@shared/formats/utf8Text";
 import { BundleExportQuerySchema, ImportBundleFieldsSchema, ImportedBundleSchema } from "@shared/schemas/exports";
 import { LabIdParamsSchema } from "@shared/schemas/labs";
 import { LabSessionIdParamsSchema } from "@shared/schemas/labSessions";
@@ -25,8 +26,10 @@ bundlesRouter.post(
   { summary: "Import a session bundle (multipart file `bundle`, or JSON `{ bundle }`) as a new session with new ids; all or nothing", auth: "user", tokenAccess: true, tags, params: LabIdParamsSchema, body: ImportBundleFieldsSchema, upload, response: ImportedBundleSchema, status: 201 },
   async ({ req, user, params, body }) => {
     await sharePolicy.importBundle(user, params.labId);
-    const text = req.file ? req.file.buffer.toString("utf8") : body.bundle !== undefined ? JSON.stringify(body.bundle) : null;
-    if (text === null) throw invalid("bundle", "Attach the bundle file (a .rhomb.json exported from a session) as the form field “bundle”.");
+    if (!req.file && body.bundle === undefined) throw invalid("bundle", "Attach the bundle file (a .rhomb.json exported from a session) as the form field “bundle”.");
+    const decoded = req.file ? decodeUtf8Text(req.file.buffer) : { ok: true as const, text: JSON.stringify(body.bundle) };
+    if (!decoded.ok) throw invalid("bundle", `The file is not UTF-8 text (${decoded.reason}); bundles are UTF-8 JSON as Rhomb exports them. Nothing was imported.`);
+    const text = decoded.text;
     return importBundle(user, params.labId, text, body.sourceId);
   },
 );
