@@ -11,6 +11,7 @@ import { sessionMiddleware } from "./http/session";
 import { csrfProtection } from "./http/csrf";
 import { loadUser } from "./http/auth";
 import { tokenAuth } from "./http/tokenAuth";
+import { refuseNonUtf8Json, refuseNulInJson } from "./http/utf8Body";
 import { healthRouter } from "./routes/health";
 import { apiRouters } from "./routes/index";
 
@@ -52,7 +53,7 @@ export function createApp({ config, dataSource }: AppDeps): Express {
   );
 
   const api = express.Router();
-  api.use(express.json({ limit: "2mb" }));
+  api.use(express.json({ limit: "2mb", verify: refuseNonUtf8Json }), refuseNulInJson);
   api.use(healthRouter(dataSource));
   api.use(sessionMiddleware(config, dataSource));
   api.use(csrfProtection);

@@ -32,6 +32,8 @@ export function toHttpError(err: unknown): HttpError {
   const pgCode = e?.code ?? e?.driverError?.code;
   if (pgCode === "23505") return conflict("That already exists.", e.detail ? { detail: e.detail } : undefined);
   if (pgCode === "22P02") return notFound();
+  // A NUL character in text (22021) or jsonb (22P05) that no earlier check caught.
+  if (pgCode === "22021" || pgCode === "22P05") return new HttpError(400, "invalid", "A text holds a NUL character (\\u0000) or bytes that are not UTF-8, which cannot be stored; remove it. Nothing was saved.");
   if (isDatabaseUnavailable(err)) return serviceUnavailable();
   return new HttpError(500, "internal", "Something went wrong on our side. Nothing was half-saved; the error is logged.");
 }
