@@ -34,8 +34,8 @@ export function BatchUploadView({ labId, initialSessionId }: { labId: string; in
   return (
     <>
       <PageTitle subtitle="Many runs at once — a sweep, a day of measurements — each file checked and stored on its own.">Batch upload</PageTitle>
-      <div className="grid gap-4 lg:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
-        <div className="space-y-4">
+      <div className="grid grid-cols-1 gap-4 lg:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
+        <div className="min-w-0 space-y-4">
           <Panel title="Files and session">
             <QueryState query={sessions} what="sessions">
               {(page) =>
@@ -51,7 +51,7 @@ export function BatchUploadView({ labId, initialSessionId }: { labId: string; in
                   <div className="space-y-4">
                     <Field label="Into session" hint="Every run of the batch goes into this session and is reconstructed with its setup (window, calibrations, handedness).">
                       {(p) => (
-                        <select {...fieldProps(p)} value={sessionId} onChange={(e) => setSessionId(e.target.value)} className={`${inputClass} max-w-xl`}>
+                        <select {...fieldProps(p)} value={sessionId} onChange={(e) => setSessionId(e.target.value)} className={`${inputClass} min-w-0 max-w-xl`}>
                           <option value="">Choose a session…</option>
                           {page.data.map((s) => (
                             <option key={s.id} value={s.id}>

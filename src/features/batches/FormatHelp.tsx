@@ -9,7 +9,7 @@ const JSON_RUN = '{ "format": "rhomb-run/1",\n  "name": "5 mW", "settingSetId": 
 /** The layouts a batch takes, the limits, and how to post from an acquisition script. */
 export function FormatHelp({ sessionId }: { sessionId: string | null }) {
   return (
-    <div className="space-y-4">
+    <div className="min-w-0 space-y-4">
       <Panel title="What a batch takes">
         <dl className="space-y-3 text-sm">
           <div>

@@ -36,7 +36,8 @@ export function RecentBatches({ labId }: { labId: string }) {
                 key: "outcome",
                 header: "Outcome",
                 render: (b) => (
-                  <span className="whitespace-nowrap text-ink-soft">
+                  // relative: the screen-reader labels are positioned inside the cell, not the page
+                  <span className="relative whitespace-nowrap text-ink-soft">
                     {b.done ? "" : "running · "}
                     {(["stored", "duplicate", "failed"] as const).map((s) => (
                       <span key={s} className="mr-3" title={STATUS_LOOK[s].label}>
