@@ -148,7 +148,7 @@ describe("the bad-input corpus at every upload door", () => {
 
   describe("the acquisition API with a personal token (POST …/acquisitions)", () => {
     // The bytes as they are: superagent would otherwise serialise a Buffer as JSON.
-    const post = (bytes: Buffer, contentType = "application/json") => token.post(`/api/labs/${f.lab.id}/sessions/${sessionId}/acquisitions`).set("Content-Type", contentType).serialize((b: unknown) => b).send(bytes);
+    const post = (bytes: Buffer, contentType = "application/json") => token.post(`/api/labs/${f.lab.id}/sessions/${sessionId}/acquisitions`).set("Content-Type", contentType).serialize((b) => b as string).send(bytes);
     /** The API names a problem by its JSON path: rows.<index>.<key>, or the key itself. */
     const fieldOf = (c: BadInput) => [...(c.row !== null ? ["rows", String(c.row - 1)] : []), ...(c.column ? [c.column] : [])].join(".");
     const bodyLevel = (c: BadInput) => c.row === null && c.column === null;
