@@ -90,6 +90,10 @@ function hessenbergQr(re: Float64Array, im: Float64Array, n: number): ComplexVal
   const cs = new Float64Array(n);
   const sr = new Float64Array(n);
   const si = new Float64Array(n);
+  // Deflation also relative to the whole matrix (LAPACK's zlahqr does the same): beside tiny
+  // eigenvalues the local test alone can wait for a subdiagonal below rounding that never comes.
+  let norm = 0;
+  for (let k = 0; k < n * n; k++) norm = Math.max(norm, Math.hypot(re[k], im[k]));
   let hi = n - 1;
   let iterations = 0;
   while (hi >= 0) {
@@ -102,7 +106,7 @@ function hessenbergQr(re: Float64Array, im: Float64Array, n: number): ComplexVal
     while (lo > 0) {
       const sub = Math.hypot(re[lo * n + lo - 1], im[lo * n + lo - 1]);
       const diag = Math.hypot(re[lo * n + lo], im[lo * n + lo]) + Math.hypot(re[(lo - 1) * n + lo - 1], im[(lo - 1) * n + lo - 1]);
-      if (sub <= Number.EPSILON * (diag || 1)) {
+      if (sub <= Number.EPSILON * (diag || 1) || sub <= Number.EPSILON * norm * 1e-2) {
         re[lo * n + lo - 1] = 0;
         im[lo * n + lo - 1] = 0;
         break;
