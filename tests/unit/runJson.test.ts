@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { inferSettingSetId, parseRunJson, RunFileError, RUN_JSON_FORMAT } from "@shared/formats/runJson";
 import { standardSet } from "@shared/physics/settings";
+import { LIMITS } from "@shared/limits";
 
 // Layout checks only (our own format).
 const rows16 = standardSet("tomo16").labels.map((setting, i) => ({ setting, counts: 10 + i }));
@@ -44,5 +45,10 @@ describe("one-run JSON", () => {
     expect(inferSettingSetId(standardSet("tomo16").labels.slice(1))).toBe("custom");
     expect(inferSettingSetId(["H", "V", "D", "R"])).toBe("qubit4");
     expect(inferSettingSetId(["HH", "HH"])).toBe("custom");
+  });
+
+  it(`refuses a run of more than ${LIMITS.runRows} rows`, () => {
+    const rows = Array.from({ length: LIMITS.runRows + 1 }, () => ({ setting: "HH", counts: 1 }));
+    expect(issuesOf(JSON.stringify({ name: "long", settingSetId: "custom", rows }))).toEqual([{ row: null, column: "rows", message: `At most ${LIMITS.runRows} rows.` }]);
   });
 });

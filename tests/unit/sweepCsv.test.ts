@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { isSweepCsv, parseSweepCsv, readSweepCsv, sweepLineAsCsv, writeSweepCsv } from "@shared/formats/sweepCsv";
 import { RunFileError } from "@shared/formats/runJson";
+import { LIMITS } from "@shared/limits";
 import { standardSet } from "@shared/physics/settings";
 import type { CountsRow } from "@shared/physics/types";
 
@@ -78,5 +79,11 @@ describe("sweep CSV (one run per line)", () => {
     const [out] = parseSweepCsv(`HH,HV\n1,2\n`, { fallbackName: "sweep" });
     expect("run" in out && out.run.name).toBe("sweep row 2");
     expect("run" in out && out.run.settingSetId).toBe("custom");
+  });
+
+  it(`refuses a sweep of more than ${LIMITS.sweepRuns} runs, naming the first line over the limit`, () => {
+    const lines = Array.from({ length: LIMITS.sweepRuns + 1 }, (_, i) => `run ${i},1,2`).join("\n");
+    const error = errorOf(() => readSweepCsv(`run,HH,HV\n${lines}\n`));
+    expect(error.issues).toEqual([{ row: LIMITS.sweepRuns + 2, column: null, message: `a sweep file holds at most ${LIMITS.sweepRuns} runs; this one has ${LIMITS.sweepRuns + 1} — split it` }]);
   });
 });
