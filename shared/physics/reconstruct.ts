@@ -83,6 +83,12 @@ export function solveProblem(problem: PreparedProblem, data: PreparedCounts, opt
   if (!(data.totalCounts > 0)) throw new EngineInputError("no_counts", "All rows have zero counts (after corrections); there is nothing to reconstruct.");
   const rates = data.counts.map((n, k) => n / data.weights[k]);
   const linear = linearInversionSigma(problem.linear, rates);
+  // A weight near zero or an overflow (a subnormal exposure, a drift factor from a monitor
+  // reading of 1e308) leaves no finite estimate; say so rather than fail later on NaN.
+  if (!linear.re.every(Number.isFinite) || !linear.im.every(Number.isFinite)) {
+    const row = rates.findIndex((r) => !Number.isFinite(r));
+    throw new EngineInputError("invalid_input", `${row >= 0 ? `row ${row + 1}: ` : ""}the exposures, efficiencies and drift-monitor readings span too many orders of magnitude for a finite estimate; check them`);
+  }
   if (options.method === "linear") return { sigma: linear };
   if (options.method === "projected") return { sigma: rescaled(problem.model, data, projectedOrMixed(linear)) };
   const mle = maximumLikelihood(problem.model, problem.linear, data, { linear, positive: () => projectedOrMixed(linear) }, options);
