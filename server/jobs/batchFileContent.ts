@@ -1,6 +1,7 @@
 import { parseRunJson, RunFileError, type FileIssue } from "@shared/formats/runJson";
 import { parseSweepCsv, readSweepCsv, sweepColumnOf } from "@shared/formats/sweepCsv";
 import type { BatchFileFormat } from "@shared/schemas/batches";
+import { decodeUtf8Text } from "@shared/formats/utf8Text";
 import type { CreateRun } from "@shared/schemas/runs";
 import { HttpError } from "../http/errors";
 
@@ -23,12 +24,11 @@ export function stem(name: string): string {
   return name.replace(/\.[^.]*$/, "").trim().slice(0, 100) || "Uploaded run";
 }
 
+/** The file's text (shared/formats/utf8Text.ts), or a file error that says why it is not. */
 export function decodeText(bytes: Uint8Array): string {
-  try {
-    return new TextDecoder("utf-8", { fatal: true }).decode(bytes);
-  } catch {
-    throw new RunFileError([{ row: null, column: null, message: "the file is not UTF-8 text; save it as UTF-8 (CSV or JSON) and upload it again" }]);
-  }
+  const decoded = decodeUtf8Text(bytes);
+  if (decoded.ok) return decoded.text;
+  throw new RunFileError([{ row: null, column: null, message: `the file is not UTF-8 text: ${decoded.reason}; save it as CSV or JSON in UTF-8 and upload it again` }]);
 }
 
 /** The run of a JSON file or a sweep line (one-run CSVs are parsed by the upload service). */

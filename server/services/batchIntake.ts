@@ -4,7 +4,6 @@ import { describeIssue, RunFileError } from "@shared/formats/runJson";
 import { isSweepCsv, readSweepCsv, sweepLineAsCsv } from "@shared/formats/sweepCsv";
 import { looksLikeZip, unpackZip, ZipBatchError } from "@shared/formats/zipBatch";
 import type { BatchFileFormat } from "@shared/schemas/batches";
-import { decodeText } from "../jobs/batchFileContent";
 
 /**
  * What an upload holds, unit by unit, before anything is stored: each plain file, each zip
@@ -51,9 +50,15 @@ function readFile(name: string, bytes: Buffer): IntakeEntry[] {
   if (bytes.length === 0) return [refusedEntry(name, 0, "the file is empty")];
   if (/\.json$/i.test(name)) return [entry(name, "run-json", bytes, null)];
   if (!/\.(csv|tsv|txt)$/i.test(name)) return [refusedEntry(name, bytes.length, "not a file type Rhomb reads: give run files as .csv or .json, or a .zip of them")];
+  let text: string;
   try {
-    const text = decodeText(bytes);
-    if (!isSweepCsv(text)) return [entry(name, "run-csv", bytes, null)];
+    text = new TextDecoder("utf-8", { fatal: true }).decode(bytes);
+  } catch {
+    return [refusedEntry(name, bytes.length, "the file is not UTF-8 text (Latin-1 or UTF-16, perhaps); save it as CSV in UTF-8 and upload it again")];
+  }
+  // Only the layout is sniffed here; a one-run CSV is read (and judged) by the notebook's upload service.
+  if (!isSweepCsv(text)) return [entry(name, "run-csv", bytes, null)];
+  try {
     const sweep = readSweepCsv(text);
     return sweep.records.map((r) => entry(`${name} › row ${r.line}`, "sweep-line", Buffer.from(sweepLineAsCsv(sweep, r), "utf8"), r.line));
   } catch (e) {
