@@ -13,7 +13,7 @@ import { prepareLinearSystem, linearInversionSigma, type LinearSystem } from "./
 import { projectToDensityMatrix } from "./projectedLeastSquares";
 import { maximumLikelihood, type MleOptions, type MleResult } from "./maximumLikelihood";
 import { expectedCounts, logLikelihood, rescaled } from "./likelihood";
-import { type CMatrix, hermitianPart, scale, toPlain, traceRe } from "./linalg/complexMatrix";
+import { type CMatrix, hermitianPart, identity, scale, toPlain, traceRe } from "./linalg/complexMatrix";
 import { hermitianEigenvalues } from "./linalg/hermitianEigen";
 import { DEFAULT_HANDEDNESS } from "./states";
 import { EngineInputError } from "./errors";
@@ -82,17 +82,21 @@ export interface Estimate {
 export function solveProblem(problem: PreparedProblem, data: PreparedCounts, options: ReconstructOptions): Estimate {
   if (!(data.totalCounts > 0)) throw new EngineInputError("no_counts", "All rows have zero counts (after corrections); there is nothing to reconstruct.");
   const rates = data.counts.map((n, k) => n / data.weights[k]);
-  const linear = linearInversionSigma(problem.linear, rates);
-  // A weight near zero or an overflow (a subnormal exposure, a drift factor from a monitor
-  // reading of 1e308) leaves no finite estimate; say so rather than fail later on NaN.
-  if (!linear.re.every(Number.isFinite) || !linear.im.every(Number.isFinite)) {
-    const row = rates.findIndex((r) => !Number.isFinite(r));
-    throw new EngineInputError("invalid_input", `${row >= 0 ? `row ${row + 1}: ` : ""}the exposures, efficiencies and drift-monitor readings span too many orders of magnitude for a finite estimate; check them`);
-  }
+  const linear = finite(linearInversionSigma(problem.linear, rates), rates);
   if (options.method === "linear") return { sigma: linear };
-  if (options.method === "projected") return { sigma: rescaled(problem.model, data, projectedOrMixed(linear)) };
+  if (options.method === "projected") return { sigma: finite(rescaled(problem.model, data, projectedOrMixed(linear)), rates) };
   const mle = maximumLikelihood(problem.model, problem.linear, data, { linear, positive: () => projectedOrMixed(linear) }, options);
-  return { sigma: mle.sigma, mle };
+  return { sigma: finite(mle.sigma, rates), mle };
+}
+
+/**
+ * A weight near zero or an overflow (a subnormal exposure, a drift factor from a monitor
+ * reading of 1e308) leaves no finite estimate; say so rather than fail later on NaN.
+ */
+function finite(sigma: CMatrix, rates: Float64Array): CMatrix {
+  if (sigma.re.every(Number.isFinite) && sigma.im.every(Number.isFinite)) return sigma;
+  const row = rates.findIndex((r) => !Number.isFinite(r));
+  throw new EngineInputError("invalid_input", `${row >= 0 ? `row ${row + 1}: ` : ""}the exposures, efficiencies and drift-monitor readings span too many orders of magnitude for a finite estimate; check them`);
 }
 
 export function reconstruct(input: ReconstructInput, options: ReconstructOptions): Reconstruction {
@@ -104,6 +108,7 @@ export function reconstruct(input: ReconstructInput, options: ReconstructOptions
 export function describe(problem: PreparedProblem, estimate: Estimate, input: ReconstructInput, options: ReconstructOptions): Reconstruction {
   const { model, data } = problem;
   const trace = traceRe(estimate.sigma);
+  if (!(trace > 0 && Number.isFinite(trace))) throw new EngineInputError("invalid_input", `The estimate has trace ${trace}, so it cannot be normalised to a state: the counts leave the pair rate undetermined (no counts in any complete basis?).`);
   const rho = hermitianPart(scale(estimate.sigma, 1 / trace));
   const eigenvalues = Array.from(hermitianEigenvalues(rho));
   const physical = eigenvalues[eigenvalues.length - 1] >= -PHYSICAL_TOLERANCE;
@@ -155,7 +160,7 @@ export function basisLabels(photons: number): string[] {
 }
 
 function projectedOrMixed(linear: CMatrix): CMatrix {
-  return traceRe(linear) > 0 ? projectToDensityMatrix(linear) : scale(linear, 0);
+  return traceRe(linear) > 0 ? projectToDensityMatrix(linear) : identity(linear.n);
 }
 
 function wrap<T>(f: () => T): T {
