@@ -12,9 +12,9 @@ const JOB_TIMEOUT = "10";
 process.env.RHOMB_JOB_TIMEOUT_SECONDS = JOB_TIMEOUT;
 resetConfigForTests();
 
-/** Jobs made deliberately slow (400 Monte Carlo samples) so a kill always lands mid-batch. */
+/** Jobs made deliberately slow (1,000 Monte Carlo samples) and many, so a kill lands mid-batch even with a fast engine. */
 const slowRuns = (prefix: string, n: number) =>
-  Array.from({ length: n }, (_, i) => ({ name: `${prefix}-${i}.json`, content: runJson(`${prefix} ${i}`, psiMinusRows({ seed: 1000 + i + prefix.length * 100 }), { reconstruction: { monteCarloSamples: 400 } }) }));
+  Array.from({ length: n }, (_, i) => ({ name: `${prefix}-${i}.json`, content: runJson(`${prefix} ${i}`, psiMinusRows({ seed: 1000 + i + prefix.length * 100 }), { reconstruction: { monteCarloSamples: 1000 } }) }));
 
 describe("restarts in the middle of a batch: every file is stored exactly once", () => {
   let t: TestApp;
@@ -86,7 +86,7 @@ describe("restarts in the middle of a batch: every file is stored exactly once",
     const { sessionId } = await sessionIn(f);
     const port = await freePort();
     const server = await start("server/index.ts", { PORT: String(port), RHOMB_IN_PROCESS_WORKERS: "2" });
-    const files = slowRuns("kill", 12);
+    const files = slowRuns("kill", 24);
     const batchId = await upload(port, sessionId, files);
     await waitFor("a few runs stored while others are in progress", async () => {
       const c = await counts(batchId);
@@ -110,7 +110,7 @@ describe("restarts in the middle of a batch: every file is stored exactly once",
     const port = await freePort();
     await start("server/index.ts", { PORT: String(port), RHOMB_IN_PROCESS_WORKERS: "0" });
     const first = await start("server/jobs/worker.ts");
-    const files = slowRuns("term", 10);
+    const files = slowRuns("term", 24);
     const batchId = await upload(port, sessionId, files);
     await waitFor("the worker to get going", async () => ((await counts(batchId)).stored ?? 0) >= 2);
     first.child.kill("SIGTERM");
