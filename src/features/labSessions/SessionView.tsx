@@ -29,6 +29,11 @@ export function SessionView({ labId, sessionId }: { labId: string; sessionId: st
               <>
                 {s.can.write && <ButtonLink to={labPaths.newRun(labId, s.id)}>New tomography run</ButtonLink>}
                 {s.can.write && (
+                  <ButtonLink variant="secondary" to={labPaths.batchUpload(labId, s.id)}>
+                    Upload many files
+                  </ButtonLink>
+                )}
+                {s.can.write && (
                   <ButtonLink variant="secondary" to={labPaths.newBellTest(labId, s.id)}>
                     New Bell test
                   </ButtonLink>

@@ -7,6 +7,7 @@ export const labPaths = {
   newRun: (labId: string, sessionId: string) => `/labs/${labId}/sessions/${sessionId}/runs/new`,
   newBellTest: (labId: string, sessionId: string) => `/labs/${labId}/sessions/${sessionId}/bell-test/new`,
   newFringeScan: (labId: string, sessionId: string) => `/labs/${labId}/sessions/${sessionId}/fringe-scan/new`,
+  batchUpload: (labId: string, sessionId?: string) => `/labs/${labId}/batches${sessionId ? `?session=${sessionId}` : ""}`,
   run: (labId: string, runId: string) => `/labs/${labId}/runs/${runId}`,
   bellTest: (labId: string, runId: string) => `/labs/${labId}/runs/${runId}/bell-test`,
   fringeFit: (labId: string, runId: string) => `/labs/${labId}/runs/${runId}/fringe-fit`,
