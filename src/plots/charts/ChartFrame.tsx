@@ -25,10 +25,10 @@ export function ChartFrame({ title, caption, fileName, children, height = 320 }:
       <div className="mb-2 flex flex-wrap items-center justify-between gap-2">
         <h3 className="font-bold text-ink">{title}</h3>
         <div className="flex gap-1.5">
-          <Button variant="secondary" size="sm" onClick={() => save("png")} aria-label={`Save “${title}” as PNG`}>
+          <Button variant="secondary" size="sm" onClick={() => save("png")} aria-label={`Save PNG of “${title}”`}>
             Save PNG
           </Button>
-          <Button variant="secondary" size="sm" onClick={() => save("svg")} aria-label={`Save “${title}” as SVG`}>
+          <Button variant="secondary" size="sm" onClick={() => save("svg")} aria-label={`Save SVG of “${title}”`}>
             Save SVG
           </Button>
         </div>
