@@ -20,13 +20,17 @@ export function FormatHelp({ sessionId }: { sessionId: string | null }) {
           </div>
           <div>
             <dt className="font-bold text-ink">Sweep CSV — one run per line</dt>
-            <dd className="text-ink-soft">A column per setting label, optional run, set, seconds, pump_mw, crystal_c, tilt_deg, notes and &lt;label&gt;_singles_a/_b.</dd>
-            <pre className="mt-1 overflow-x-auto rounded bg-paper-sunk p-2 text-xs">{SWEEP}</pre>
+            <dd className="text-ink-soft">
+              A column per setting label, optional run, set, seconds, pump_mw, crystal_c, tilt_deg, notes and &lt;label&gt;_singles_a/_b.
+              <pre className="mt-1 overflow-x-auto rounded bg-paper-sunk p-2 text-xs text-ink">{SWEEP}</pre>
+            </dd>
           </div>
           <div>
             <dt className="font-bold text-ink">One-run JSON</dt>
-            <dd className="text-ink-soft">The fields of the API's run body; it may choose its own reconstruction.</dd>
-            <pre className="mt-1 whitespace-pre-wrap break-all rounded bg-paper-sunk p-2 text-xs">{JSON_RUN}</pre>
+            <dd className="text-ink-soft">
+              The fields of the API's run body; it may choose its own reconstruction.
+              <pre className="mt-1 whitespace-pre-wrap break-all rounded bg-paper-sunk p-2 text-xs text-ink">{JSON_RUN}</pre>
+            </dd>
           </div>
           <div>
             <dt className="font-bold text-ink">Zip archives</dt>
