@@ -15,7 +15,11 @@ export interface ComplexValue {
   im: number;
 }
 
-const MAX_ITERATIONS_PER_EIGENVALUE = 60;
+/**
+ * QR sweeps allowed per eigenvalue before giving up: LAPACK's zlahqr allows 30·max(10, n). A
+ * near-degenerate complex pair of ρρ̃ (a non-physical estimate) was seen to need 63.
+ */
+const maxIterationsPerEigenvalue = (n: number) => 30 * Math.max(10, n);
 
 export function complexEigenvalues(a: CMatrix): ComplexValue[] {
   const n = a.n;
@@ -119,7 +123,7 @@ function hessenbergQr(re: Float64Array, im: Float64Array, n: number): ComplexVal
       iterations = 0;
       continue;
     }
-    if (++iterations > MAX_ITERATIONS_PER_EIGENVALUE) throw new Error("eigenvalues: the QR iteration did not converge");
+    if (++iterations > maxIterationsPerEigenvalue(n)) throw new Error("eigenvalues: the QR iteration did not converge");
     const [mr, mi] = iterations % 11 === 0 ? exceptionalShift(re, im, n, hi) : wilkinsonShift(re, im, n, hi);
     for (let k = lo; k <= hi; k++) {
       re[k * n + k] -= mr;
