@@ -13,7 +13,8 @@ import { readFileSync } from "node:fs";
 import fc from "fast-check";
 import { parseTomographyCsv } from "@shared/formats/tomographyCsv";
 import { describe, expect, it } from "vitest";
-import { EngineInputError, PHYSICAL_TOLERANCE, figuresOfMerit, monteCarlo, reconstruct, standardSet, type CountsRow, type Method } from "@shared/physics";
+import { EngineInputError, PHYSICAL_TOLERANCE, figuresOfMerit, monteCarlo, reconstruct, simulateCounts, standardSet, type CountsRow, type Method } from "@shared/physics";
+import { wernerLike } from "../../server/db/seeds/demoStates";
 
 /** Counts as they come: mostly plausible, with the edges over-represented. */
 const plausibleCount = fc.oneof(
@@ -140,5 +141,12 @@ describe("engine properties (fast-check)", () => {
       const out = attempt(() => monteCarlo({ rows }, { method: "linear" }, { samples: 200, seed, target: "psi-" }));
       expect(out instanceof EngineInputError, `seed ${seed}`).toBe(false);
     }
+  });
+
+  it("Monte Carlo of a simulated ψ⁻-like run whose resampled linear estimate needs 63 QR sweeps for one eigenvalue never throws", () => {
+    // Found in a search over simulated runs like the batch benchmark's (invented data).
+    const rows = simulateCounts({ rho: wernerLike(0.9 + 0.09 * 0.34), settings: tomo16, pairRate: 500 + ((82 * 997) % 20000), seconds: 1, seed: 5082, singles: { rateA: 60000, rateB: 60000, windowNs: 3 } });
+    const out = attempt(() => monteCarlo({ rows }, { method: "linear" }, { samples: 200, seed: 159, target: "psi-" }));
+    expect(out).not.toBeInstanceOf(EngineInputError);
   });
 });
