@@ -46,7 +46,7 @@ describe("the counts grid and the state view", () => {
     await page.getByRole("button", { name: "Open session" }).click();
     await page.waitForURL(/\/sessions\/[0-9a-f-]{36}$/);
 
-    await page.getByRole("link", { name: "New run" }).first().click();
+    await page.getByRole("link", { name: "New tomography run" }).first().click();
     await page.getByLabel("Run name").fill("bench 5 mW");
     await page.getByLabel("Pump power").fill("5");
     // Keyboard only: the first counts cell, then a number and Enter per setting.
@@ -96,7 +96,7 @@ describe("the counts grid and the state view", () => {
     const { page, shot } = browser;
     await signIn(page, baseUrl, "student@larkspur.example");
     await page.getByRole("region", { name: "Recent sessions" }).getByRole("link").nth(1).click();
-    await page.getByRole("link", { name: "New run" }).first().click();
+    await page.getByRole("link", { name: "New tomography run" }).first().click();
     const labels = standardSet("tomo16").labels;
     // Label-first rows in another order, as a spreadsheet might hold them; HV has an extra digit.
     const sheet = [...labels].reverse().map((l) => `${l}\t${l === "HV" ? COUNTS[l] * 10 : COUNTS[l]}\t2`).join("\n") + "\n";
@@ -125,7 +125,7 @@ describe("one counts file", () => {
     const { page, shot } = browser;
     await signIn(page, baseUrl, "student@larkspur.example");
     await page.getByRole("region", { name: "Recent sessions" }).getByRole("link").nth(1).click();
-    await page.getByRole("link", { name: "New run" }).first().click();
+    await page.getByRole("link", { name: "New tomography run" }).first().click();
     await page.getByRole("radio", { name: "Upload a file" }).check({ force: true });
     const file = page.getByLabel("Counts file (.csv)");
     await file.setInputFiles("examples/batches/bad-day/typo-in-counts.csv");
