@@ -29,7 +29,7 @@ describe("inviting a member", () => {
     await owner.page.getByRole("link", { name: "People" }).first().click();
     await owner.page.waitForURL(/\/members$/);
     await owner.page.getByLabel("E-mail address").fill(email);
-    await owner.page.getByLabel("Role").selectOption({ label: "Member" });
+    await owner.page.getByLabel("Role", { exact: true }).selectOption({ label: "Member" });
     await owner.page.getByRole("button", { name: "Send invitation" }).click();
     await owner.page.getByText("Invitation sent").waitFor();
     expect(await owner.page.getByText(`${email} can join as member`).isVisible()).toBe(true);
