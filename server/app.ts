@@ -7,7 +7,7 @@ import type { DataSource } from "typeorm";
 import type { Config } from "./config";
 import { logger } from "./logger";
 import { apiNotFound, errorMiddleware } from "./http/errorMiddleware";
-import { sessionMiddleware } from "./http/session";
+import { refreshSession, sessionMiddleware } from "./http/session";
 import { csrfProtection } from "./http/csrf";
 import { loadUser } from "./http/auth";
 import { tokenAuth } from "./http/tokenAuth";
@@ -58,6 +58,7 @@ export function createApp({ config, dataSource }: AppDeps): Express {
   api.use(sessionMiddleware(config, dataSource));
   api.use(csrfProtection);
   api.use(loadUser);
+  api.use(refreshSession);
   api.use(tokenAuth);
   for (const r of apiRouters) api.use(r.prefix, r.router);
   api.use(apiNotFound);

@@ -2,7 +2,7 @@ import session from "express-session";
 import connectPgSimple from "connect-pg-simple";
 import type { DataSource } from "typeorm";
 import type { Pool } from "pg";
-import type { Request, Response } from "express";
+import type { Request, RequestHandler, Response } from "express";
 import type { Config } from "../config";
 import { issueCsrfToken } from "./csrf";
 
@@ -10,12 +10,21 @@ declare module "express-session" {
   interface SessionData {
     userId?: string;
     activeLabId?: string;
+    /** When the stored expiry was last pushed forward (ms since epoch). */
+    refreshedAt?: number;
   }
 }
 
 const SESSION_DAYS = 14;
+/** How stale the stored expiry may get before a request writes it forward again. */
+const REFRESH_EVERY_MS = 60 * 60 * 1000;
 
-/** Sign-in sessions kept in PostgreSQL (table http_sessions, created by a migration). */
+/**
+ * Sign-in sessions kept in PostgreSQL (table http_sessions, created by a migration). Sessions
+ * slide: 14 days after the last use. The store's per-request "touch" is off — it was one
+ * committed UPDATE (a WAL flush) on every API call — and `refreshSession` below writes the new
+ * expiry at most once an hour instead.
+ */
 export function sessionMiddleware(config: Config, dataSource: DataSource) {
   const PgStore = connectPgSimple(session);
   // Share TypeORM's pg pool rather than opening a second one.
@@ -24,13 +33,20 @@ export function sessionMiddleware(config: Config, dataSource: DataSource) {
   return session({
     name: "rhomb.sid",
     secret: config.sessionSecret,
-    store: new PgStore({ pool, tableName: "http_sessions", createTableIfMissing: false, pruneSessionInterval: 15 * 60 }),
+    store: new PgStore({ pool, tableName: "http_sessions", createTableIfMissing: false, pruneSessionInterval: 15 * 60, disableTouch: true }),
     resave: false,
     saveUninitialized: false,
     rolling: true,
     cookie: { httpOnly: true, sameSite: "lax", secure, maxAge: SESSION_DAYS * 24 * 3600 * 1000 },
   });
 }
+
+/** Marks a signed-in session modified once an hour, so express-session saves its new expiry. */
+export const refreshSession: RequestHandler = (req, _res, next) => {
+  const now = Date.now();
+  if (req.session?.userId && now - (req.session.refreshedAt ?? 0) > REFRESH_EVERY_MS) req.session.refreshedAt = now;
+  next();
+};
 
 type SessionReq = { session: session.Session & Partial<session.SessionData> };
 
