@@ -21,15 +21,15 @@
  * (the first-order convexity bound, e.g. Boyd & Vandenberghe, "Convex Optimization", §3.1.3).
  * This `optimalityGap` (nats of log-likelihood) must fall to tolerance · max(N, 1).
  */
-import { inBasis, type MeasurementModel } from "./measurementModel";
+import { inBasisInto, type MeasurementModel } from "./measurementModel";
 import type { PreparedCounts } from "./corrections";
 import type { LinearSystem } from "./linearInversion";
-import { type CMatrix, add, hermitianPart, identity, multiply, adjoint, scale, zeros } from "./linalg/complexMatrix";
+import { type CMatrix, add, hermitianPart, identity, multiply, adjoint, scale } from "./linalg/complexMatrix";
 import { fromSpectrum, hermitianEigen } from "./linalg/hermitianEigen";
 import { DampedNewton } from "./linalg/dampedNewton";
-import { expectedCounts, gradientOperator, inverseSqrtTotalOperator, logLikelihood, rescaled } from "./likelihood";
+import { expectedCounts, gapBound, gradientOperator, inverseSqrtTotalOperator, logLikelihood, rescaled } from "./likelihood";
 import { sigmaFromParameters } from "./choleskyParametrisation";
-import { PoissonNewton } from "./poissonNewton";
+import { type AnalysedStates, PoissonNewton } from "./poissonNewton";
 import { UnconstrainedPoisson } from "./unconstrainedPoisson";
 import { fromPauliCoefficients, pauliCoefficients } from "./pauliBasis";
 
@@ -108,6 +108,27 @@ export function maximumLikelihood(
   };
 }
 
+/** What a face search keeps between bases and calls: one set per measurement model. */
+interface SearchWork {
+  rotated: AnalysedStates;
+  problem: PoissonNewton | null;
+  newton: DampedNewton | null;
+  theta: Float64Array;
+}
+
+const workByModel = new WeakMap<MeasurementModel, SearchWork>();
+
+function searchWork(model: MeasurementModel): SearchWork {
+  let w = workByModel.get(model);
+  if (!w) {
+    const d = model.dimension;
+    const rotated = { dimension: d, rows: model.rows, psiRe: new Float64Array(model.rows * d), psiIm: new Float64Array(model.rows * d) };
+    w = { rotated, problem: null, newton: null, theta: new Float64Array(d * d) };
+    workByModel.set(model, w);
+  }
+  return w;
+}
+
 /**
  * Newton over T in the eigenbasis of `start`; columns of eigenvalues below FACE_THRESHOLD·λ_max
  * stay zero. Returns σ in the original basis and the gap reached.
@@ -123,16 +144,33 @@ function positiveSearch(
   const d = model.dimension;
   const { values, vectors: u } = hermitianEigen(hermitianPart(start));
   const floor = FACE_THRESHOLD * values[0];
-  const rank = Math.max(1, values.filter((v) => v > floor).length);
-  const rotated = inBasis(model, u);
+  let rank = 0;
+  for (let i = 0; i < d; i++) if (values[i] > floor) rank++;
+  rank = Math.max(1, rank);
+  const work = searchWork(model);
+  const { rotated, theta } = work;
+  inBasisInto(model, u, rotated);
   const rotatedInvSqrt = multiply(multiply(adjoint(u), mInvSqrt), u);
-  const problem = new PoissonNewton(rotated, data, rank);
-  const newton = new DampedNewton(problem);
+  if (work.problem) work.problem.reset(rotated, data, rank);
+  else work.problem = new PoissonNewton(rotated, data, rank);
+  const problem = work.problem;
+  work.newton ??= new DampedNewton(problem);
+  const newton = work.newton;
   // Start at the positive part of `start`, scaled to the measured total (the best multiple).
-  const kept = values.map((v, i) => (i < rank ? Math.max(v, floor) : 0));
-  const scaleToTotal = data.totalCounts / expectedCounts(rotated, data.weights, diagonal(kept)).reduce((a, b) => a + b, 0);
-  const theta = new Float64Array(d * d);
-  for (let i = 0; i < d; i++) theta[i * i + 2 * i] = Math.sqrt(kept[i] * scaleToTotal);
+  theta.fill(0);
+  let total = 0;
+  for (let k = 0; k < model.rows; k++) {
+    let s = 0;
+    for (let i = 0; i < rank; i++) {
+      const v = Math.max(values[i], floor);
+      const pr = rotated.psiRe[k * d + i], pi = rotated.psiIm[k * d + i];
+      s += pr * (v * pr) + pi * (v * pi);
+    }
+    total += data.weights[k] * s;
+  }
+  const scaleToTotal = data.totalCounts / total;
+  for (let i = 0; i < rank; i++) theta[i * i + 2 * i] = Math.sqrt(Math.max(values[i], floor) * scaleToTotal);
+  const gapHere = () => gapBound(problem.g, rotatedInvSqrt, problem.totalExpected, data.totalCounts);
   let gap = Infinity;
   let lastDecrease = Infinity;
   let stalled = false;
@@ -142,14 +180,14 @@ function positiveSearch(
     // have found the optimum) and once steps have become small. A failed certificate after
     // steps at rounding level means this face is the wrong one.
     if (steps === 0 || lastDecrease <= GAP_CHECK_FACTOR * threshold) {
-      gap = problem.gap(rotatedInvSqrt);
+      gap = gapHere();
       stalled = lastDecrease <= STALL_FACTOR * threshold;
       if (gap <= threshold || stalled) break;
     }
     const step = steps < stepsPerBasis(d) && budget.left > 0 ? newton.step(theta) : null;
     if (!step) {
       if (steps < stepsPerBasis(d)) stalled = true;
-      gap = problem.gap(rotatedInvSqrt);
+      gap = gapHere();
       break;
     }
     budget.left--;
@@ -234,12 +272,6 @@ function fullRankStart(model: MeasurementModel, data: PreparedCounts, start: CMa
   const t = traceOf(start);
   const unit = t > 0 ? scale(start, 1 / t) : identity(d);
   return rescaled(model, data, add(scale(unit, 1 - START_MIXING), identity(d), START_MIXING / d));
-}
-
-function diagonal(values: ArrayLike<number>): CMatrix {
-  const m = zeros(values.length);
-  for (let i = 0; i < values.length; i++) m.re[i * values.length + i] = values[i];
-  return m;
 }
 
 function traceOf(m: CMatrix): number {

@@ -130,9 +130,15 @@ function productStates(sr: Float64Array, si: Float64Array, k: number, photons: n
  * vectors are rotated (the single-photon states keep the original basis).
  */
 export function inBasis(model: MeasurementModel, u: CMatrix): MeasurementModel {
+  const rotated = { ...model, psiRe: new Float64Array(model.rows * model.dimension), psiIm: new Float64Array(model.rows * model.dimension) };
+  inBasisInto(model, u, rotated);
+  return rotated;
+}
+
+/** inBasis into caller-owned arrays (out.psiRe, out.psiIm of length rows × dimension). */
+export function inBasisInto(model: MeasurementModel, u: CMatrix, out: { psiRe: Float64Array; psiIm: Float64Array }): void {
   const d = model.dimension;
-  const psiRe = new Float64Array(model.rows * d);
-  const psiIm = new Float64Array(model.rows * d);
+  const { psiRe, psiIm } = out;
   for (let k = 0; k < model.rows; k++) {
     const o = k * d;
     for (let j = 0; j < d; j++) {
@@ -149,5 +155,4 @@ export function inBasis(model: MeasurementModel, u: CMatrix): MeasurementModel {
       psiIm[o + j] = im;
     }
   }
-  return { ...model, psiRe, psiIm };
 }

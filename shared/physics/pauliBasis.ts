@@ -37,17 +37,53 @@ function forEachEntry(j: number, photons: number, visit: (r: number, c: number, 
   }
 }
 
+/** Every Γ_j as tables: the entry of row r is re/im[j·d + r] at column[j·d + r]. */
+interface PauliEntries {
+  column: Int32Array;
+  re: Float64Array;
+  im: Float64Array;
+}
+
+const entryTables = new Map<number, PauliEntries>();
+
+/** The tables, computed once per photon number (they are only read). */
+function entriesOf(photons: number): PauliEntries {
+  let t = entryTables.get(photons);
+  if (!t) {
+    t = pauliEntries(photons);
+    entryTables.set(photons, t);
+  }
+  return t;
+}
+
+function pauliEntries(photons: number): PauliEntries {
+  const d = 1 << photons;
+  const column = new Int32Array(d * d * d);
+  const re = new Float64Array(d * d * d);
+  const im = new Float64Array(d * d * d);
+  for (let j = 0; j < d * d; j++) {
+    forEachEntry(j, photons, (r, c, vr, vi) => {
+      column[j * d + r] = c;
+      re[j * d + r] = vr;
+      im[j * d + r] = vi;
+    });
+  }
+  return { column, re, im };
+}
+
 /** σ = (1/d) Σ_j x_j Γ_j */
 export function fromPauliCoefficients(x: ArrayLike<number>, photons: number): CMatrix {
   const d = 1 << photons;
   const out = zeros(d);
+  const { column, re, im } = entriesOf(photons);
   for (let j = 0; j < d * d; j++) {
     const xj = x[j] / d;
     if (xj === 0) continue;
-    forEachEntry(j, photons, (r, c, re, im) => {
-      out.re[r * d + c] += xj * re;
-      out.im[r * d + c] += xj * im;
-    });
+    for (let r = 0; r < d; r++) {
+      const e = j * d + r;
+      out.re[r * d + column[e]] += xj * re[e];
+      out.im[r * d + column[e]] += xj * im[e];
+    }
   }
   return out;
 }
@@ -56,12 +92,15 @@ export function fromPauliCoefficients(x: ArrayLike<number>, photons: number): CM
 export function pauliCoefficients(rho: CMatrix, photons: number): Float64Array {
   const d = 1 << photons;
   const x = new Float64Array(d * d);
+  const { column, re, im } = entriesOf(photons);
   for (let j = 0; j < d * d; j++) {
+    // Tr(ρΓ) = Σ_r ρ_{c r} Γ_{r c}, c the column of row r
     let s = 0;
-    // Tr(ρΓ) = Σ_{r} Σ_c ρ_{c r} Γ_{r c}
-    forEachEntry(j, photons, (r, c, re, im) => {
-      s += rho.re[c * d + r] * re - rho.im[c * d + r] * im;
-    });
+    for (let r = 0; r < d; r++) {
+      const e = j * d + r;
+      const c = column[e];
+      s += rho.re[c * d + r] * re[e] - rho.im[c * d + r] * im[e];
+    }
     x[j] = s;
   }
   return x;

@@ -9,13 +9,24 @@
  *   ∇²NLL = Σ_k (n_k/μ_k²) ∇μ_k ∇μ_kᵀ + ∇²_θ Tr(T† G T),  G = Σ_k c_k w_k |ψ_k⟩⟨ψ_k|,
  * where the last Hessian is block diagonal over the columns j of T: 2·[[Re G, −Im G], [Im G, Re G]]
  * on the entries i, l ≥ j.
+ *
+ * One instance serves every search on a measurement model: `reset` gives it the analysed states
+ * in a new basis and the rank of the face. ∇μ_k is stored transposed so that the Gauss–Newton
+ * part of the Hessian is a run of dot products (linalg/symmetricRankUpdate.ts).
  */
-import type { MeasurementModel } from "./measurementModel";
 import type { PreparedCounts } from "./corrections";
 import type { LinePoint, NewtonProblem } from "./linalg/dampedNewton";
 import { type CMatrix, zeros } from "./linalg/complexMatrix";
 import { unpackParameters } from "./choleskyParametrisation";
-import { gapBound } from "./likelihood";
+import { symmetricRankUpdate } from "./linalg/symmetricRankUpdate";
+
+/** The analysed states |ψ_k⟩ (index k·d + basis index) in the basis of the search. */
+export interface AnalysedStates {
+  dimension: number;
+  rows: number;
+  psiRe: Float64Array;
+  psiIm: Float64Array;
+}
 
 export class PoissonNewton implements NewtonProblem {
   readonly size: number;
@@ -23,51 +34,77 @@ export class PoissonNewton implements NewtonProblem {
   readonly hessian: Float64Array;
   /** Parameters of the columns j < rank of T are free; the others stay 0. */
   readonly free: Uint8Array;
+  /** G at the last evaluated θ. */
+  readonly g: CMatrix;
+  /** Σ_k μ_k at the last evaluated θ. */
+  totalExpected = 0;
+  private model: AnalysedStates;
+  private data: PreparedCounts;
   private readonly d: number;
   private readonly mu: Float64Array;
   private readonly coef: Float64Array;
+  private readonly curvature: Float64Array;
   private readonly vRe: Float64Array;
   private readonly vIm: Float64Array;
-  /** ∇μ_k per row, rows × size */
+  /** ∇μ_k transposed: dmu[p · rows + k] = ∂μ_k/∂θ_p */
   private readonly dmu: Float64Array;
+  private readonly scaled: Float64Array;
   private readonly t: CMatrix;
   private readonly step: CMatrix;
-  private readonly g: CMatrix;
   private readonly coupling: Couplings;
   private readonly lineLinear: Float64Array;
   private readonly lineQuadratic: Float64Array;
-  private totalExpected = 0;
+  /** Indices of the free parameters, ascending; frozen ones need only their diagonal (the shift uses the mean diagonal). */
+  private active: Int32Array = new Int32Array(0);
+  private frozen: Int32Array = new Int32Array(0);
 
-  constructor(private readonly model: MeasurementModel, private readonly data: PreparedCounts, rank = model.dimension) {
+  constructor(model: AnalysedStates, data: PreparedCounts, rank = model.dimension) {
     const d = model.dimension;
     this.d = d;
     this.size = d * d;
+    this.model = model;
+    this.data = data;
     this.free = new Uint8Array(this.size);
-    for (let i = 0; i < d; i++) for (let j = 0; j <= i; j++) if (j < rank) this.free.fill(1, i * i + 2 * j, i * i + 2 * j + (j < i ? 2 : 1));
     this.gradient = new Float64Array(this.size);
     this.hessian = new Float64Array(this.size * this.size);
     this.mu = new Float64Array(model.rows);
     this.coef = new Float64Array(model.rows);
+    this.curvature = new Float64Array(model.rows);
     this.vRe = new Float64Array(model.rows * d);
     this.vIm = new Float64Array(model.rows * d);
     this.dmu = new Float64Array(model.rows * this.size);
+    this.scaled = new Float64Array(model.rows * this.size);
     this.t = zeros(d);
     this.step = zeros(d);
     this.g = zeros(d);
     this.coupling = couplings(d);
     this.lineLinear = new Float64Array(model.rows);
     this.lineQuadratic = new Float64Array(model.rows);
+    this.reset(model, data, rank);
+  }
+
+  /** Same dimension and number of rows: new states (another basis), counts and rank of the face. */
+  reset(model: AnalysedStates, data: PreparedCounts, rank: number): void {
+    if (model.dimension !== this.d || model.rows !== this.model.rows) throw new Error("internal: PoissonNewton reused for another shape");
+    this.model = model;
+    this.data = data;
+    const d = this.d;
+    this.free.fill(0);
+    for (let i = 0; i < d; i++) for (let j = 0; j <= i; j++) if (j < rank) this.free.fill(1, i * i + 2 * j, i * i + 2 * j + (j < i ? 2 : 1));
+    const all = Array.from({ length: this.size }, (_, p) => p);
+    this.active = Int32Array.from(all.filter((p) => this.free[p]));
+    this.frozen = Int32Array.from(all.filter((p) => !this.free[p]));
   }
 
   /** μ_k, v_k, ∇μ_k, c_k, G and the gradient at θ. */
   evaluate(theta: Float64Array): void {
-    const { d, model, data, mu, coef, vRe, vIm, dmu, size, gradient } = this;
+    const { d, model, data, mu, coef, curvature, vRe, vIm, dmu, size, gradient } = this;
     const { psiRe, psiIm } = model;
+    const rows = model.rows;
     const tRe = this.t.re as Float64Array, tIm = this.t.im as Float64Array;
     unpackParameters(theta, d, tRe, tIm);
-    gradient.fill(0);
     let total = 0;
-    for (let k = 0; k < model.rows; k++) {
+    for (let k = 0; k < rows; k++) {
       const o = k * d;
       let norm2 = 0;
       for (let j = 0; j < d; j++) {
@@ -88,45 +125,39 @@ export class PoissonNewton implements NewtonProblem {
       mu[k] = m;
       total += m;
       const nk = data.counts[k];
-      const c = nk > 0 ? 1 - nk / m : 1;
-      coef[k] = c;
-      const row = k * size;
+      coef[k] = nk > 0 ? 1 - nk / m : 1;
+      curvature[k] = nk === 0 ? 0 : nk / (m * m);
       for (let i = 0; i < d; i++) {
         const pr = 2 * w * psiRe[o + i], pi = 2 * w * psiIm[o + i];
         const base = i * i;
         for (let j = 0; j < i; j++) {
-          const re = pr * vRe[o + j] + pi * vIm[o + j];
-          const im = pi * vRe[o + j] - pr * vIm[o + j];
           const p = base + 2 * j;
-          dmu[row + p] = re;
-          dmu[row + p + 1] = im;
-          gradient[p] += c * re;
-          gradient[p + 1] += c * im;
+          dmu[p * rows + k] = pr * vRe[o + j] + pi * vIm[o + j];
+          dmu[(p + 1) * rows + k] = pi * vRe[o + j] - pr * vIm[o + j];
         }
-        const re = pr * vRe[o + i] + pi * vIm[o + i];
-        const p = base + 2 * i;
-        dmu[row + p] = re;
-        gradient[p] += c * re;
+        dmu[(base + 2 * i) * rows + k] = pr * vRe[o + i] + pi * vIm[o + i];
       }
+    }
+    for (let p = 0; p < size; p++) {
+      let s = 0;
+      const o = p * rows;
+      for (let k = 0; k < rows; k++) s += coef[k] * dmu[o + k];
+      gradient[p] = s;
     }
     this.totalExpected = total;
     this.projectorSum();
   }
 
   buildHessian(): void {
-    const { model, data, mu, dmu, size, hessian: h, g, coupling } = this;
+    const { size, hessian: h, g, coupling, dmu, curvature } = this;
+    const rows = this.model.rows;
     h.fill(0);
-    for (let k = 0; k < model.rows; k++) {
-      const nk = data.counts[k];
-      if (nk === 0) continue;
-      const s = nk / (mu[k] * mu[k]);
-      const row = k * size;
-      for (let a = 0; a < size; a++) {
-        const ga = s * dmu[row + a];
-        if (ga === 0) continue;
-        const ha = a * size;
-        for (let b = 0; b <= a; b++) h[ha + b] += ga * dmu[row + b];
-      }
+    symmetricRankUpdate(dmu, curvature, rows, size, h, this.scaled, this.active);
+    for (const p of this.frozen) {
+      let s = 0;
+      const o = p * rows;
+      for (let k = 0; k < rows; k++) s += curvature[k] * dmu[o + k] * dmu[o + k];
+      h[p * size + p] = s;
     }
     const { target, source, sign } = coupling;
     for (let e = 0; e < target.length; e++) {
@@ -192,11 +223,6 @@ export class PoissonNewton implements NewtonProblem {
     return { value, slope, curvature };
   }
 
-  /** Optimality gap at the last evaluated point (see maximumLikelihood.ts). */
-  gap(mInvSqrt: CMatrix): number {
-    return gapBound(this.g, mInvSqrt, this.totalExpected, this.data.totalCounts);
-  }
-
   /** G = Σ_k c_k w_k |ψ_k⟩⟨ψ_k| into this.g. */
   private projectorSum(): void {
     const { d, model, data, coef, g } = this;
@@ -231,7 +257,19 @@ interface Couplings {
   sign: Int8Array;
 }
 
+const couplingsBySize = new Map<number, Couplings>();
+
+/** The coupling tables of dimension d, built once (they are only read). */
 function couplings(d: number): Couplings {
+  let c = couplingsBySize.get(d);
+  if (!c) {
+    c = buildCouplings(d);
+    couplingsBySize.set(d, c);
+  }
+  return c;
+}
+
+function buildCouplings(d: number): Couplings {
   const size = d * d;
   let count = 0;
   for (let j = 0; j < d; j++) for (let i = j; i < d; i++) count += 4 * (i - j + 1);

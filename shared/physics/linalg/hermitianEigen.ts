@@ -9,7 +9,7 @@
  * complex matrices is ~100× slower. Jacobi is accurate to a few ulps of ‖A‖ for the
  * 2×2 … 16×16 matrices of one to four photons.
  */
-import { type CMatrix, zeros, identity } from "./complexMatrix";
+import { type CMatrix, zeros } from "./complexMatrix";
 
 export interface EigenDecomposition {
   /** Eigenvalues in descending order. */
@@ -22,11 +22,61 @@ const MAX_SWEEPS = 60;
 
 export function hermitianEigen(input: CMatrix): EigenDecomposition {
   const n = input.n;
-  const ar = input.re.slice();
-  const ai = input.im.slice();
-  const v = identity(n);
-  const vr = v.re;
-  const vi = v.im;
+  const w = jacobi(input, true);
+  const vectors = zeros(n);
+  const values = new Float64Array(n);
+  for (let col = 0; col < n; col++) {
+    const src = w.order[col];
+    values[col] = w.ar[src * n + src];
+    for (let k = 0; k < n; k++) {
+      vectors.re[k * n + col] = w.vr[k * n + src];
+      vectors.im[k * n + col] = w.vi[k * n + src];
+    }
+  }
+  return { values, vectors };
+}
+
+/** Eigenvalues only, descending (the same values as hermitianEigen, without the eigenvectors' cost). */
+export function hermitianEigenvalues(a: CMatrix): Float64Array {
+  const n = a.n;
+  const w = jacobi(a, false);
+  const values = new Float64Array(n);
+  for (let col = 0; col < n; col++) values[col] = w.ar[w.order[col] * n + w.order[col]];
+  return values;
+}
+
+/** Scratch of the Jacobi sweeps, one per size: typed arrays above 64 bytes live off the V8 heap and cost microseconds each to allocate. */
+interface JacobiWork {
+  ar: Float64Array;
+  ai: Float64Array;
+  vr: Float64Array;
+  vi: Float64Array;
+  order: Int32Array;
+}
+
+const workBySize = new Map<number, JacobiWork>();
+
+function workFor(n: number): JacobiWork {
+  let w = workBySize.get(n);
+  if (!w) {
+    w = { ar: new Float64Array(n * n), ai: new Float64Array(n * n), vr: new Float64Array(n * n), vi: new Float64Array(n * n), order: new Int32Array(n) };
+    workBySize.set(n, w);
+  }
+  return w;
+}
+
+/** Diagonalises a copy of `input` in the size's scratch; `order` lists the diagonal by descending value. */
+function jacobi(input: CMatrix, withVectors: boolean): JacobiWork {
+  const n = input.n;
+  const w = workFor(n);
+  const { ar, ai, vr, vi, order } = w;
+  ar.set(input.re);
+  ai.set(input.im);
+  if (withVectors) {
+    vr.fill(0);
+    vi.fill(0);
+    for (let i = 0; i < n; i++) vr[i * n + i] = 1;
+  }
   for (let i = 0; i < n; i++) ai[i * n + i] = 0;
 
   for (let sweep = 0; sweep < MAX_SWEEPS; sweep++) {
@@ -76,14 +126,18 @@ export function hermitianEigen(input: CMatrix): EigenDecomposition {
           ai[k * n + p] = c * kpi - s * wi;
           ar[k * n + q] = s * kpr + c * wr;
           ai[k * n + q] = s * kpi + c * wi;
-          const vpr = vr[k * n + p], vpi = vi[k * n + p];
-          const vqr = vr[k * n + q], vqi = vi[k * n + q];
-          const ur = vqr * er + vqi * ei;
-          const ui = vqi * er - vqr * ei;
-          vr[k * n + p] = c * vpr - s * ur;
-          vi[k * n + p] = c * vpi - s * ui;
-          vr[k * n + q] = s * vpr + c * ur;
-          vi[k * n + q] = s * vpi + c * ui;
+        }
+        if (withVectors) {
+          for (let k = 0; k < n; k++) {
+            const vpr = vr[k * n + p], vpi = vi[k * n + p];
+            const vqr = vr[k * n + q], vqi = vi[k * n + q];
+            const ur = vqr * er + vqi * ei;
+            const ui = vqi * er - vqr * ei;
+            vr[k * n + p] = c * vpr - s * ur;
+            vi[k * n + p] = c * vpi - s * ui;
+            vr[k * n + q] = s * vpr + c * ur;
+            vi[k * n + q] = s * vpi + c * ui;
+          }
         }
         // Rows: A ← U†·A
         for (let k = 0; k < n; k++) {
@@ -102,23 +156,16 @@ export function hermitianEigen(input: CMatrix): EigenDecomposition {
       }
     }
   }
-
-  const order = Array.from({ length: n }, (_, i) => i).sort((a, b) => ar[b * n + b] - ar[a * n + a]);
-  const values = Float64Array.from(order, (i) => ar[i * n + i]);
-  const vectors = zeros(n);
-  for (let col = 0; col < n; col++) {
-    const src = order[col];
-    for (let k = 0; k < n; k++) {
-      vectors.re[k * n + col] = vr[k * n + src];
-      vectors.im[k * n + col] = vi[k * n + src];
+  // Descending order of the diagonal (stable insertion sort, as Array.prototype.sort is).
+  for (let i = 0; i < n; i++) {
+    let j = i;
+    while (j > 0 && ar[order[j - 1] * n + order[j - 1]] < ar[i * n + i]) {
+      order[j] = order[j - 1];
+      j--;
     }
+    order[j] = i;
   }
-  return { values, vectors };
-}
-
-/** Eigenvalues only, descending. */
-export function hermitianEigenvalues(a: CMatrix): Float64Array {
-  return hermitianEigen(a).values;
+  return w;
 }
 
 /** V · diag(f(λ)) · V† — a function of a Hermitian matrix through its spectrum. */
