@@ -55,12 +55,12 @@ export function prepareLinearSystem(model: MeasurementModel): LinearSystem {
 
 /** σ (unnormalised, Tr σ = estimated pair rate) from the rates; may be non-physical. */
 export function linearInversionSigma(system: LinearSystem, rates: Float64Array): CMatrix {
-  const { params: p, rows, design } = system;
+  const { params: p, rows, design, nonzero, nonzeroStart } = system;
   const rhs = new Float64Array(p);
   for (let k = 0; k < rows; k++) {
     const r = rates[k];
     if (r === 0) continue;
-    for (let j = 0; j < p; j++) rhs[j] += design[k * p + j] * r;
+    for (let e = nonzeroStart[k]; e < nonzeroStart[k + 1]; e++) rhs[nonzero[e]] += design[k * p + nonzero[e]] * r;
   }
   return fromPauliCoefficients(choleskySolve(system.normal, rhs), system.photons);
 }

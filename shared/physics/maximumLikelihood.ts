@@ -42,6 +42,12 @@ const START_MIXING = 0.01;
 const WIDENING = 1e-3;
 /** Eigenvalues of the step-1 optimum below this fraction of the largest start on the face's boundary. */
 const FACE_THRESHOLD = 1e-9;
+/**
+ * The unconstrained Newton stops once a step lowers NLL by less than this multiple of the
+ * threshold: one more (cheap, quadratically convergent) step than the gap needs, so that an
+ * interior optimum passes the certificate without a step in the Cholesky parameters.
+ */
+const UNCONSTRAINED_STOP = 1e-3;
 /** Check the gap once a step lowered NLL by less than this multiple of the threshold. */
 const GAP_CHECK_FACTOR = 10;
 /** Steps lowering NLL by less than this multiple of the threshold have reached rounding level. */
@@ -262,7 +268,7 @@ function unconstrainedOptimum(linear: LinearSystem, data: PreparedCounts, starts
     const step = budget.left > 0 ? newton.step(x) : null;
     if (!step) break;
     budget.left--;
-    if (step.decrease <= threshold) break;
+    if (step.decrease <= UNCONSTRAINED_STOP * threshold) break;
   } while (problem.evaluate(x));
   return fromPauliCoefficients(x, linear.photons);
 }

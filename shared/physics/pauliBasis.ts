@@ -119,16 +119,26 @@ export function designRow(
   outOffset: number,
 ): void {
   const d = 1 << photons;
-  let row = Float64Array.of(1 / d);
+  // Build the product in place: after photon q the first 4^(q+1) entries hold the partial products.
+  out[outOffset] = 1 / d;
+  let length = 1;
   for (let q = 0; q < photons; q++) {
     const o = offset + q * 2;
     const ar = singleRe[o], ai = singleIm[o], br = singleRe[o + 1], bi = singleIm[o + 1];
-    const n2 = ar * ar + ai * ai + br * br + bi * bi;
     // Bloch components of (a, b): X = 2 Re(a* b), Y = 2 Im(a* b), Z = |a|² − |b|²
-    const bloch = [n2, 2 * (ar * br + ai * bi), 2 * (ar * bi - ai * br), ar * ar + ai * ai - br * br - bi * bi];
-    const next = new Float64Array(row.length * 4);
-    for (let i = 0; i < row.length; i++) for (let p = 0; p < 4; p++) next[i * 4 + p] = row[i] * bloch[p];
-    row = next;
+    const b0 = ar * ar + ai * ai + br * br + bi * bi;
+    const b1 = 2 * (ar * br + ai * bi);
+    const b2 = 2 * (ar * bi - ai * br);
+    const b3 = ar * ar + ai * ai - br * br - bi * bi;
+    // backwards, so that entry i is read before entries 4i … 4i + 3 overwrite it
+    for (let i = length - 1; i >= 0; i--) {
+      const v = out[outOffset + i];
+      const t = outOffset + 4 * i;
+      out[t] = v * b0;
+      out[t + 1] = v * b1;
+      out[t + 2] = v * b2;
+      out[t + 3] = v * b3;
+    }
+    length *= 4;
   }
-  out.set(row, outOffset);
 }

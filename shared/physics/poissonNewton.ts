@@ -96,9 +96,12 @@ export class PoissonNewton implements NewtonProblem {
     this.frozen = Int32Array.from(all.filter((p) => !this.free[p]));
   }
 
-  /** μ_k, v_k, ∇μ_k, c_k, G and the gradient at θ. */
+  /**
+   * μ_k, v_k, c_k and G at θ: what the certificate needs. ∇μ_k and the gradient follow in
+   * buildHessian, only when a step is taken.
+   */
   evaluate(theta: Float64Array): void {
-    const { d, model, data, mu, coef, curvature, vRe, vIm, dmu, size, gradient } = this;
+    const { d, model, data, mu, coef, curvature, vRe, vIm } = this;
     const { psiRe, psiIm } = model;
     const rows = model.rows;
     const tRe = this.t.re as Float64Array, tIm = this.t.im as Float64Array;
@@ -127,6 +130,19 @@ export class PoissonNewton implements NewtonProblem {
       const nk = data.counts[k];
       coef[k] = nk > 0 ? 1 - nk / m : 1;
       curvature[k] = nk === 0 ? 0 : nk / (m * m);
+    }
+    this.totalExpected = total;
+    this.projectorSum();
+  }
+
+  /** ∇μ_k (stored transposed) and the gradient at the last evaluated θ. */
+  private rowGradients(): void {
+    const { d, model, data, coef, vRe, vIm, dmu, size, gradient } = this;
+    const { psiRe, psiIm } = model;
+    const rows = model.rows;
+    for (let k = 0; k < rows; k++) {
+      const o = k * d;
+      const w = data.weights[k];
       for (let i = 0; i < d; i++) {
         const pr = 2 * w * psiRe[o + i], pi = 2 * w * psiIm[o + i];
         const base = i * i;
@@ -144,13 +160,13 @@ export class PoissonNewton implements NewtonProblem {
       for (let k = 0; k < rows; k++) s += coef[k] * dmu[o + k];
       gradient[p] = s;
     }
-    this.totalExpected = total;
-    this.projectorSum();
   }
 
+  /** The gradient and the Hessian at the last evaluated θ. */
   buildHessian(): void {
     const { size, hessian: h, g, coupling, dmu, curvature } = this;
     const rows = this.model.rows;
+    this.rowGradients();
     h.fill(0);
     symmetricRankUpdate(dmu, curvature, rows, size, h, this.scaled, this.active);
     for (const p of this.frozen) {

@@ -26,23 +26,26 @@ export class UnconstrainedPoisson implements NewtonProblem {
     this.hessian = new Float64Array(p * p);
     this.mu = new Float64Array(linear.rows);
     this.change = new Float64Array(linear.rows);
-    // w_k a_k, the gradient of μ_k
-    this.wa = new Float64Array(linear.design.length);
-    for (let k = 0; k < linear.rows; k++) for (let j = 0; j < p; j++) this.wa[k * p + j] = linear.design[k * p + j] * data.weights[k];
+    // w_k a_k, the gradient of μ_k, at the non-zero entries of the design (wa[e] for column nonzero[e])
+    const { nonzero, nonzeroStart } = linear;
+    this.wa = new Float64Array(nonzero.length);
+    for (let k = 0; k < linear.rows; k++) {
+      for (let e = nonzeroStart[k]; e < nonzeroStart[k + 1]; e++) this.wa[e] = linear.design[k * p + nonzero[e]] * data.weights[k];
+    }
   }
 
   /** μ and the gradient at x; false if some μ_k ≤ 0. */
   evaluate(x: Float64Array): boolean {
-    const { size: p, wa, mu, gradient, data } = this;
+    const { wa, mu, gradient, data } = this;
     const { nonzero, nonzeroStart } = this.linear;
     gradient.fill(0);
     for (let k = 0; k < this.linear.rows; k++) {
       let m = 0;
-      for (let a = nonzeroStart[k]; a < nonzeroStart[k + 1]; a++) m += wa[k * p + nonzero[a]] * x[nonzero[a]];
+      for (let a = nonzeroStart[k]; a < nonzeroStart[k + 1]; a++) m += wa[a] * x[nonzero[a]];
       mu[k] = m;
       if (!(m > 0)) return false;
       const c = 1 - data.counts[k] / m;
-      for (let a = nonzeroStart[k]; a < nonzeroStart[k + 1]; a++) gradient[nonzero[a]] += c * wa[k * p + nonzero[a]];
+      for (let a = nonzeroStart[k]; a < nonzeroStart[k + 1]; a++) gradient[nonzero[a]] += c * wa[a];
     }
     return true;
   }
@@ -62,19 +65,19 @@ export class UnconstrainedPoisson implements NewtonProblem {
       const s = data.counts[k] / (mu[k] * mu[k]);
       for (let a = nonzeroStart[k]; a < nonzeroStart[k + 1]; a++) {
         const i = nonzero[a];
-        const ga = s * wa[k * p + i];
-        for (let b = nonzeroStart[k]; b <= a; b++) h[i * p + nonzero[b]] += ga * wa[k * p + nonzero[b]];
+        const ga = s * wa[a];
+        for (let b = nonzeroStart[k]; b <= a; b++) h[i * p + nonzero[b]] += ga * wa[b];
       }
     }
     for (let a = 0; a < p; a++) for (let b = 0; b < a; b++) h[b * p + a] = h[a * p + b];
   }
 
   setDirection(delta: Float64Array): void {
-    const { size: p, wa, change } = this;
+    const { wa, change } = this;
     const { nonzero, nonzeroStart } = this.linear;
     for (let k = 0; k < this.linear.rows; k++) {
       let m = 0;
-      for (let a = nonzeroStart[k]; a < nonzeroStart[k + 1]; a++) m += wa[k * p + nonzero[a]] * delta[nonzero[a]];
+      for (let a = nonzeroStart[k]; a < nonzeroStart[k + 1]; a++) m += wa[a] * delta[nonzero[a]];
       change[k] = m;
     }
   }
