@@ -2,6 +2,7 @@ import { useDevOutbox } from "../../api/devOutbox";
 import { ApiError } from "../../api/client";
 import { Alert } from "../../components/Alert";
 import { EmptyState, QueryState } from "../../components/QueryState";
+import { formatDateTime } from "@shared/format/dates";
 
 const LINK_WORDS: Record<string, string> = {
   "/verify-email": "Confirm the address",
@@ -31,7 +32,7 @@ export function DevOutbox() {
                 <div className="flex flex-wrap items-baseline justify-between gap-2">
                   <h2 className="font-bold text-ink">{m.subject}</h2>
                   <time className="text-sm text-ink-faint" dateTime={m.receivedAt}>
-                    {new Date(m.receivedAt).toLocaleString()}
+                    {formatDateTime(m.receivedAt)}
                   </time>
                 </div>
                 <p className="text-sm text-ink-soft">

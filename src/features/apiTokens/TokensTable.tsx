@@ -6,6 +6,7 @@ import { Button } from "../../components/Button";
 import { DataTable } from "../../components/DataTable";
 import { Dialog } from "../../components/Dialog";
 import { EmptyState } from "../../components/QueryState";
+import { formatDateTime } from "@shared/format/dates";
 
 const STATUS = {
   active: { label: "Active", glyph: "●", cls: "bg-success-soft text-success" },
@@ -13,7 +14,7 @@ const STATUS = {
   revoked: { label: "Revoked", glyph: "■", cls: "bg-danger-soft text-danger" },
 } as const;
 
-const when = (iso: string | null, none: string) => (iso ? new Date(iso).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" }) : none);
+const when = (iso: string | null, none: string) => (iso ? formatDateTime(iso) : none);
 
 export function TokensTable({ tokens }: { tokens: ApiTokenDto[] }) {
   const [confirm, setConfirm] = useState<ApiTokenDto | null>(null);

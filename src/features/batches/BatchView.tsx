@@ -6,6 +6,7 @@ import { Panel } from "../../components/Panel";
 import { QueryState } from "../../components/QueryState";
 import { labPaths } from "../notebook/labPaths";
 import { BatchProgress } from "./BatchProgress";
+import { formatDateTime } from "@shared/format/dates";
 
 /** One batch's page: progress while it runs (it keeps going if this page is closed), outcome after. */
 export function BatchView({ labId, batchId }: { labId: string; batchId: string }) {
@@ -21,7 +22,7 @@ export function BatchView({ labId, batchId }: { labId: string; batchId: string }
                 <Link className="font-bold text-petrol-700 underline" to={labPaths.session(labId, b.session.id)}>
                   {b.session.title}
                 </Link>{" "}
-                · uploaded {new Date(b.createdAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" })} by {b.createdBy?.displayName ?? "—"}
+                · uploaded {formatDateTime(b.createdAt)} by {b.createdBy?.displayName ?? "—"}
                 {b.origin === "token" ? " with an API token" : ""}
               </>
             }

@@ -5,6 +5,7 @@ import { DataTable } from "../../components/DataTable";
 import { Panel } from "../../components/Panel";
 import { EmptyState, QueryState } from "../../components/QueryState";
 import { STATUS_LOOK } from "./BatchStatusBadge";
+import { formatDateTime } from "@shared/format/dates";
 
 /** The lab's latest batches with their counts; each opens its progress page. */
 export function RecentBatches({ labId }: { labId: string }) {
@@ -25,7 +26,7 @@ export function RecentBatches({ labId }: { labId: string }) {
                 header: "Uploaded",
                 render: (b) => (
                   <Link className="font-bold text-petrol-700 underline" to={`/labs/${labId}/batches/${b.id}`}>
-                    {new Date(b.createdAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" })}
+                    {formatDateTime(b.createdAt)}
                   </Link>
                 ),
               },

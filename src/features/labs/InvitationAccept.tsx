@@ -12,6 +12,7 @@ import { FormAlert } from "../account/FormAlert";
 import { showServerErrors } from "../account/formErrors";
 import { TextField } from "../account/TextField";
 import { roleWords } from "./roleWords";
+import { formatDateTime } from "@shared/format/dates";
 
 const NewAccountSchema = z.object({ displayName: DisplayNameSchema, password: NewPasswordSchema });
 type NewAccount = z.infer<typeof NewAccountSchema>;
@@ -59,7 +60,7 @@ export function InvitationAccept({ token }: { token: string }) {
         <strong>{inv.invitedBy}</strong> invites <strong>{inv.email}</strong> to <strong>{inv.labName}</strong>
         {inv.institution && ` (${inv.institution})`} as {role.article} <strong>{role.label.toLowerCase()}</strong>: {role.can}.
       </p>
-      <p className="text-sm text-ink-faint">The link works once, until {new Date(inv.expiresAt).toLocaleString()}.</p>
+      <p className="text-sm text-ink-faint">The link works once, until {formatDateTime(inv.expiresAt)}.</p>
       {me.data ? (
         <>
           {accept.error && (

@@ -5,6 +5,7 @@ import { DataTable } from "../../components/DataTable";
 import { EmptyState, QueryState } from "../../components/QueryState";
 import { StatusBadge } from "../../components/StatusBadge";
 import { roleWords } from "./roleWords";
+import { formatDateTime } from "@shared/format/dates";
 
 /** Invitations not yet accepted: who, which role, until when; owners withdraw them here. */
 export function InvitationsList({ labId }: { labId: string }) {
@@ -31,7 +32,7 @@ export function InvitationsList({ labId }: { labId: string }) {
               { key: "email", header: "E-mail", render: (i) => i.email },
               { key: "role", header: "Role", render: (i) => roleWords[i.role].label },
               { key: "status", header: "Status", render: (i) => (i.status === "pending" ? <StatusBadge tone="pending">Waiting</StatusBadge> : <StatusBadge tone="down">Expired</StatusBadge>) },
-              { key: "expires", header: "Link valid until", render: (i) => new Date(i.expiresAt).toLocaleString() },
+              { key: "expires", header: "Link valid until", render: (i) => formatDateTime(i.expiresAt) },
               { key: "by", header: "Invited by", render: (i) => i.invitedBy },
               {
                 key: "actions",

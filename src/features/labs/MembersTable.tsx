@@ -9,6 +9,7 @@ import { DataTable } from "../../components/DataTable";
 import { Dialog } from "../../components/Dialog";
 import { QueryState } from "../../components/QueryState";
 import { ROLE_ORDER, roleWords } from "./roleWords";
+import { formatDate } from "@shared/format/dates";
 
 /** The lab's people: owners change roles and remove people; everyone else may leave. */
 export function MembersTable({ labId }: { labId: string }) {
@@ -75,7 +76,7 @@ export function MembersTable({ labId }: { labId: string }) {
                     roleWords[m.role].label
                   ),
               },
-              { key: "joined", header: "Joined", render: (m) => new Date(m.joinedAt).toLocaleDateString() },
+              { key: "joined", header: "Joined", render: (m) => formatDate(m.joinedAt) },
               {
                 key: "actions",
                 header: <span className="sr-only">Actions</span>,

@@ -1,6 +1,7 @@
 import { formatCount, formatNumber } from "@shared/format/uncertainty";
 import type { ReconstructionDto } from "@shared/schemas/reconstructions";
 import { METHOD_NAME } from "../stateView/meritRows";
+import { formatDateTime } from "@shared/format/dates";
 
 /** Method, likelihood, iterations, engine version and seed: what it takes to reproduce the numbers. */
 export function FitDetails({ reconstruction: r }: { reconstruction: ReconstructionDto }) {
@@ -13,7 +14,7 @@ export function FitDetails({ reconstruction: r }: { reconstruction: Reconstructi
     ["Monte Carlo", r.uncertainties ? `${r.uncertainties.samples} samples, seed ${r.uncertainties.seed}` : "none"],
     ["Handedness", r.conventions.handedness],
     ["Engine", r.engineVersion],
-    ["Computed", new Date(r.createdAt).toLocaleString()],
+    ["Computed", formatDateTime(r.createdAt)],
   ];
   return (
     <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-sm">

@@ -2,6 +2,7 @@ import type { ArmAnglesSchema, RunDetailDto } from "@shared/schemas/runs";
 import type { z } from "zod";
 import { formatDecimal } from "@shared/format/uncertainty";
 import { DataTable } from "../../components/DataTable";
+import { formatDateTime } from "@shared/format/dates";
 
 type Row = RunDetailDto["rows"][number] & { index: number };
 
@@ -39,7 +40,7 @@ export function RawCounts({ run }: { run: RunDetailDto }) {
           <ol className="mt-1 space-y-1 pl-5">
             {run.revisions.map((rev) => (
               <li key={rev.id} className="list-decimal">
-                Revision {rev.number}, {new Date(rev.createdAt).toLocaleString()} by {rev.createdBy?.displayName ?? "someone no longer in the lab"}: {rev.reason}
+                Revision {rev.number}, {formatDateTime(rev.createdAt)} by {rev.createdBy?.displayName ?? "someone no longer in the lab"}: {rev.reason}
                 {rev.changes.length > 0 && <span className="text-ink-faint"> ({rev.changes.length} change{rev.changes.length === 1 ? "" : "s"})</span>}
               </li>
             ))}

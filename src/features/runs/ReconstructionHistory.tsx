@@ -5,6 +5,7 @@ import { DataTable } from "../../components/DataTable";
 import { ValueWithError } from "../../components/ValueWithError";
 import { BELL_SYMBOL, METHOD_NAME } from "../stateView/meritRows";
 import { describeCorrections } from "./reconstructionChoice";
+import { formatDateTime } from "@shared/format/dates";
 
 /** Every stored reconstruction of a run, newest first; choosing one shows it above. */
 export function ReconstructionHistory({ reconstructions, selectedId, onSelect, target, currentRevision }: {
@@ -39,7 +40,7 @@ export function ReconstructionHistory({ reconstructions, selectedId, onSelect, t
         { key: "revision", header: "Counts", render: (r) => `revision ${r.revisionNumber}${r.revisionNumber === currentRevision ? "" : " (older)"}` },
         { key: "fidelity", header: `F(${BELL_SYMBOL[target]})`, numeric: true, render: (r) => <ValueWithError value={r.metrics[key]} uncertainty={r.uncertainties?.metrics[key]} /> },
         { key: "physical", header: "Physical", render: (r) => (r.physical ? "yes" : <strong className="text-danger">no</strong>) },
-        { key: "when", header: "Computed", render: (r) => new Date(r.createdAt).toLocaleString() },
+        { key: "when", header: "Computed", render: (r) => formatDateTime(r.createdAt) },
       ]}
     />
   );

@@ -6,6 +6,7 @@ import { DataTable, type Column, type SortState } from "../../components/DataTab
 import { ValueWithError } from "../../components/ValueWithError";
 import { labPaths } from "../notebook/labPaths";
 import { BELL_SYMBOL } from "../stateView/meritRows";
+import { formatDateTime } from "@shared/format/dates";
 
 const KIND: Record<RunDto["kind"], string> = { tomography: "Tomography", bell: "Bell test", fringe: "Fringe scan" };
 
@@ -46,7 +47,7 @@ export function RunsTable({ labId, runs, caption, sort, onSort, showSession = fa
     { key: "concurrence", header: "Concurrence", numeric: true, sortKey: "concurrence", render: (r) => (r.headline ? <ValueWithError value={r.headline.concurrence} uncertainty={r.headline.concurrenceUncertainty} /> : "—") },
     { key: "purity", header: "Purity", numeric: true, sortKey: "purity", render: (r) => (r.headline ? <ValueWithError value={r.headline.purity} uncertainty={r.headline.purityUncertainty} /> : "—") },
     { key: "chsh", header: "CHSH max", numeric: true, render: (r) => (r.headline ? <ValueWithError value={r.headline.chshMax} uncertainty={r.headline.chshMaxUncertainty} /> : "—") },
-    { key: "created", header: "Saved", sortKey: "createdAt", render: (r) => <span className="whitespace-nowrap">{new Date(r.createdAt).toLocaleString(undefined, { dateStyle: "medium", timeStyle: "short" })}</span> },
+    { key: "created", header: "Saved", sortKey: "createdAt", render: (r) => <span className="whitespace-nowrap">{formatDateTime(r.createdAt)}</span> },
   ];
   return <DataTable caption={caption} captionHidden columns={columns} rows={runs} rowKey={(r) => r.id} sort={sort} onSort={onSort} empty={empty} />;
 }

@@ -5,6 +5,7 @@ import { DataTable } from "../../components/DataTable";
 import { EmptyState, QueryState } from "../../components/QueryState";
 import { StatusBadge } from "../../components/StatusBadge";
 import { ITEM_LABEL, STATUS_WORDS } from "./shareWords";
+import { formatDate } from "@shared/format/dates";
 
 /** The signed-in guest's shared items, newest first; closed ones say why they no longer open. */
 export function GuestShareList() {
@@ -34,7 +35,7 @@ export function GuestShareList() {
             { key: "type", header: "What", render: (s) => ITEM_LABEL[s.itemType] },
             { key: "lab", header: "Lab", render: (s) => (s.lab.institution ? `${s.lab.name}, ${s.lab.institution}` : s.lab.name) },
             { key: "by", header: "Shared by", render: (s) => s.sharedBy },
-            { key: "when", header: "Shared on", render: (s) => new Date(s.createdAt).toLocaleDateString() },
+            { key: "when", header: "Shared on", render: (s) => formatDate(s.createdAt) },
             { key: "status", header: "Status", render: (s) => <StatusBadge tone={STATUS_WORDS[s.status].tone}>{STATUS_WORDS[s.status].label(s.expiresAt)}</StatusBadge> },
           ]}
         />

@@ -8,6 +8,7 @@ import { EmptyState, QueryState } from "../../components/QueryState";
 import { StatusBadge } from "../../components/StatusBadge";
 import { labPaths } from "../notebook/labPaths";
 import { ITEM_LABEL, STATUS_WORDS } from "./shareWords";
+import { formatDateTime } from "@shared/format/dates";
 
 /** The shared item's name, linked to its page where it has one of its own. */
 function ItemName({ labId, share: s }: { labId: string; share: ShareDto }) {
@@ -49,9 +50,9 @@ export function ShareList({ labId, item, canRevoke, showItem = false }: { labId:
                       {s.label && <span className="font-normal text-ink-soft"> · {s.label}</span>}
                     </p>
                     <p className="text-ink-soft">
-                      Made by {s.createdBy?.displayName ?? "a former member"} on {new Date(s.createdAt).toLocaleString()}
-                      {s.openCount > 0 ? ` · opened ${s.openCount}×, last ${new Date(s.lastOpenedAt!).toLocaleString()}` : " · not opened yet"}
-                      {s.revokedAt && ` · revoked by ${s.revokedBy?.displayName ?? "a former member"} on ${new Date(s.revokedAt).toLocaleString()}`}
+                      Made by {s.createdBy?.displayName ?? "a former member"} on {formatDateTime(s.createdAt)}
+                      {s.openCount > 0 ? ` · opened ${s.openCount}×, last ${formatDateTime(s.lastOpenedAt!)}` : " · not opened yet"}
+                      {s.revokedAt && ` · revoked by ${s.revokedBy?.displayName ?? "a former member"} on ${formatDateTime(s.revokedAt)}`}
                     </p>
                   </div>
                   <div className="flex items-center gap-2">

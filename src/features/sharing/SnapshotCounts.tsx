@@ -1,6 +1,7 @@
 import type { SnapshotRun } from "@shared/schemas/shares";
 import { formatCount, formatDecimal } from "@shared/format/uncertainty";
 import { DataTable } from "../../components/DataTable";
+import { formatDate } from "@shared/format/dates";
 
 type Row = SnapshotRun["rows"][number] & { index: number };
 
@@ -34,7 +35,7 @@ export function SnapshotCounts({ run }: { run: SnapshotRun }) {
           <ul className="list-disc pl-5">
             {run.countRevisions.map((r) => (
               <li key={r.number}>
-                Revision {r.number} ({new Date(r.createdAt).toLocaleDateString()}): {r.reason}
+                Revision {r.number} ({formatDate(r.createdAt)}): {r.reason}
               </li>
             ))}
           </ul>

@@ -10,6 +10,7 @@ import { METHOD_NAME } from "../stateView/meritRows";
 import { ReconstructionDetails, type SnapshotMode } from "./ReconstructionDetails";
 import { SnapshotCounts } from "./SnapshotCounts";
 import { defaultOf } from "./snapshotAdapters";
+import { formatDate } from "@shared/format/dates";
 
 const KIND_WORDS = { tomography: "Tomography", bell: "Bell test", fringe: "Fringe scan" } as const;
 
@@ -43,7 +44,7 @@ export function SnapshotRunSection({ snapshot, run, mode, allReconstructions = f
           {run.name}
         </h2>
         <p className="text-sm text-ink-soft">
-          {KIND_WORDS[run.kind]}, setting set {run.settingSetId}, recorded {new Date(run.createdAt).toLocaleDateString()}
+          {KIND_WORDS[run.kind]}, setting set {run.settingSetId}, recorded {formatDate(run.createdAt)}
           {conditions && ` · ${conditions}`}
         </p>
         {run.notes && <p className="mt-1 whitespace-pre-wrap text-sm text-ink-soft">{run.notes}</p>}

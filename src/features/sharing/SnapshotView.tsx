@@ -6,6 +6,7 @@ import type { SnapshotMode } from "./ReconstructionDetails";
 import { SessionRunsTable } from "./SessionRunsTable";
 import { SnapshotRunSection } from "./SnapshotRunSection";
 import { SnapshotSetup } from "./SnapshotSetup";
+import { formatDateTime } from "@shared/format/dates";
 
 const ITEM_WORDS = { session: "Lab session", run: "Run", reconstruction: "Reconstructed state" } as const;
 
@@ -47,7 +48,7 @@ export function SnapshotView({ snapshot, mode, banner }: { snapshot: Snapshot; m
         </div>
       ))}
       <footer className="border-t border-paper-sunk pt-2 text-xs text-ink-faint">
-        Made with Rhomb on {new Date(snapshot.generatedAt).toLocaleString()}. Raw counts are shown as recorded; every figure carries ± one Monte Carlo standard deviation where computed.
+        Made with Rhomb on {formatDateTime(snapshot.generatedAt)}. Raw counts are shown as recorded; every figure carries ± one Monte Carlo standard deviation where computed.
       </footer>
     </article>
   );

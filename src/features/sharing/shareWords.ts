@@ -1,4 +1,5 @@
 import type { ShareItemType, ShareStatus } from "@shared/schemas/shares";
+import { formatDate } from "@shared/format/dates";
 
 export const ITEM_LABEL: Record<ShareItemType, string> = { session: "Lab session", run: "Run", reconstruction: "Reconstructed state" };
 
@@ -7,8 +8,8 @@ export const ITEM_SHORT: Record<ShareItemType, string> = { session: "session", r
 
 /** Status words; the badge adds a shape, so the state never rests on colour alone. */
 export const STATUS_WORDS: Record<ShareStatus, { tone: "up" | "down" | "pending"; label: (expiresAt: string | null) => string }> = {
-  active: { tone: "up", label: (e) => (e ? `Open until ${new Date(e).toLocaleDateString()}` : "Open") },
-  expired: { tone: "pending", label: (e) => `Expired ${e ? new Date(e).toLocaleDateString() : ""}`.trim() },
+  active: { tone: "up", label: (e) => (e ? `Open until ${formatDate(e)}` : "Open") },
+  expired: { tone: "pending", label: (e) => `Expired ${e ? formatDate(e) : ""}`.trim() },
   revoked: { tone: "down", label: () => "Revoked" },
 };
 
