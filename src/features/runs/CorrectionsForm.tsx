@@ -67,7 +67,7 @@ export function CorrectionsForm({ labId, run, current, sessionWindowNs, onCreate
         <fieldset className="rounded-md border border-paper-sunk p-3">
           <legend className="px-1 font-bold">Accidental coincidences</legend>
           <label className="flex items-center gap-2">
-            <input type="checkbox" {...register("corrections.accidentals")} disabled={!hasSingles} /> Subtract A = s<sub>a</sub>·s<sub>b</sub>·τ / t from every row
+            <input type="checkbox" {...register("corrections.accidentals")} disabled={!hasSingles} /> Subtract accidentals, A = singles A × singles B × τ / exposure, from every row
           </label>
           {!hasSingles && <p className="mt-1 text-ink-faint">Needs singles on every row; this run has none.</p>}
           <Field label="Window τ (full width)" unit="ns" className="mt-2" error={e.corrections?.windowNs?.message} hint={sessionWindowNs !== null ? `Empty: the session's ${sessionWindowNs} ns.` : "The session has no window; give one here."}>

@@ -33,6 +33,11 @@ function plainNumber(v: number): string {
   return String(Number(v.toPrecision(6))).replace("-", "−");
 }
 
+/** Runs in the order of the plotted parameter (runs without it last), as the eye reads the chart. */
+function byX(runs: TrendRunDto[], x: TrendXKey): TrendRunDto[] {
+  return [...runs].sort((a, b) => (a.x[x] ?? Infinity) - (b.x[x] ?? Infinity));
+}
+
 export function TrendView({ trend, figure, x }: { trend: TrendDto; figure: TrendFigureKey; x: TrendXKey }) {
   const xAxis = { label: X_LABEL[x], tickFormat: x === "recordedAt" ? timeTick : undefined };
   const figureSeries = seriesOf(trend.runs, x, (r) => r.figures[figure]);
@@ -72,12 +77,12 @@ export function TrendView({ trend, figure, x }: { trend: TrendDto; figure: Trend
         <ChartFrame
           title="Pair rate and accidentals"
           fileName={`${trend.scope.title} rates vs ${x}`}
-          caption="Left axis: coincidences per second summed over one complete analyser basis (e.g. HH + HV + VH + VV), ±1σ. Right axis: accidental coincidences per second, s_A·s_B·τ (needs singles and the session's window)."
+          caption="Left axis: coincidences per second summed over one complete analyser basis (e.g. HH + HV + VH + VV), ±1σ. Right axis: accidental coincidences per second, singles A × singles B × window τ (needs singles and the session's window)."
         >
           <TrendChart series={[...pairSeries, ...accidentalSeries]} x={xAxis} y={{ label: "Pair rate (/s)" }} yRight={accidentalSeries.length ? { label: "Accidentals (/s)" } : undefined} />
         </ChartFrame>
       </div>
-      <DataTable caption={`Runs of ${trend.scope.title}`} columns={columns} rows={trend.runs} rowKey={(r) => r.runId} />
+      <DataTable caption={`Runs of ${trend.scope.title}, by ${X_LABEL[x].replace(/ \(.*\)$/, "").toLowerCase()}`} columns={columns} rows={byX(trend.runs, x)} rowKey={(r) => r.runId} />
     </div>
   );
 }
