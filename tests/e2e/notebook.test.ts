@@ -145,7 +145,7 @@ describe("one counts file", () => {
     // The file has singles: reconstruct again with accidentals subtracted; the result is stored and shown.
     const history = page.getByRole("region", { name: "Every reconstruction of this run" }).locator("tbody tr");
     const before = await history.count();
-    await page.getByLabel(/Subtract A = s/).check();
+    await page.getByLabel(/Subtract accidentals/).check();
     await page.getByLabel("Window τ (full width)").fill("3");
     await page.getByLabel("Monte Carlo samples").fill("50");
     await page.getByRole("button", { name: "Reconstruct with these settings" }).click();
