@@ -5,11 +5,12 @@
  *   npm run load -- --connections 20 --seconds 60
  */
 import { execFileSync, spawn } from "node:child_process";
+import os from "node:os";
 import { parseArgs } from "node:util";
 import autocannon from "autocannon";
 import pg from "pg";
 
-const { values } = parseArgs({ options: { connections: { type: "string", default: "20" }, seconds: { type: "string", default: "60" }, json: { type: "boolean", default: false } } });
+const { values } = parseArgs({ options: { connections: { type: "string", default: "20" }, seconds: { type: "string", default: "60" }, json: { type: "boolean", default: false }, mixed: { type: "boolean", default: false } } });
 const connections = Number(values.connections);
 const seconds = Number(values.seconds);
 const log = (msg: string) => process.stderr.write(`[load] ${msg}\n`);
@@ -78,9 +79,12 @@ async function main(): Promise<void> {
     const runs = await getJson<{ data: Array<{ id: string }> }>(`/api/labs/${labId}/runs?pageSize=25`);
     if (!runs.data.length) throw new Error("the seeded lab has no runs to load");
     const runPaths = runs.data.map((r) => `/api/labs/${labId}/runs/${r.id}`);
-    const paths = [...runPaths, ...runPaths, `/api/labs/${labId}/runs?pageSize=25`, `/api/labs/${labId}/home`, "/api/auth/me"];
-    log(`${connections} signed-in clients, ${seconds} s, ${runPaths.length} run pages + lists, against ${base}`);
+    // The goal is about run pages (a run with its rows, revisions and reconstructions), so they are
+    // the whole workload; add `--mixed` for run pages interleaved with the run list and lab home.
+    const paths = values.mixed ? [...runPaths, ...runPaths, `/api/labs/${labId}/runs?pageSize=25`, `/api/labs/${labId}/home`, "/api/auth/me"] : runPaths;
+    log(`${connections} signed-in clients, ${seconds} s, ${runPaths.length} run pages${values.mixed ? " + lists" : ""}, against ${base}`);
 
+    const loadBefore = os.loadavg()[0].toFixed(1);
     let next = 0;
     const result = await autocannon({
       url: base,
@@ -90,6 +94,8 @@ async function main(): Promise<void> {
       setupClient: (client) => client.setHeaders({ cookie: cookies[next++ % cookies.length], accept: "application/json" }),
     });
     const summary = {
+      workload: values.mixed ? "mixed" : "run pages",
+      loadAverage: { before: Number(loadBefore), after: Number(os.loadavg()[0].toFixed(1)) },
       connections,
       seconds,
       requests: result.requests.total,
@@ -101,7 +107,7 @@ async function main(): Promise<void> {
     };
     if (values.json) console.log(JSON.stringify(summary));
     else {
-      console.log(`\nRhomb load test — ${connections} signed-in clients for ${seconds} s (run pages, run list, lab home, me)`);
+      console.log(`\nRhomb load test — ${connections} signed-in clients for ${seconds} s (${values.mixed ? "run pages, run list, lab home, me" : "run pages"}); load average before ${loadBefore}, after ${os.loadavg()[0].toFixed(1)}`);
       console.log(`  requests      ${summary.requests} (${summary.requestsPerSecond.toFixed(0)}/s)`);
       console.log(`  latency p50   ${summary.latencyMs.p50} ms`);
       console.log(`  latency p90   ${summary.latencyMs.p90} ms`);
@@ -110,6 +116,8 @@ async function main(): Promise<void> {
     }
     if (summary.errors || summary.non2xx || summary.timeouts) process.exitCode = 1;
   } finally {
+    // Let autocannon's last in-flight requests finish before the server goes.
+    await new Promise((r) => setTimeout(r, 1000));
     server.kill("SIGTERM");
   }
 }
