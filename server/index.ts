@@ -5,6 +5,7 @@ import { createDataSource, setDataSource } from "./db/dataSource";
 import { logger } from "./logger";
 import { jobQueue, stopJobQueue } from "./jobs/queue";
 import { startBatchWorkers } from "./jobs/workers";
+import { startMonteCarloPool } from "./services/monteCarlo";
 
 /** Starts the web process: database, HTTP server, and a clean shutdown on SIGINT/SIGTERM. */
 async function main(): Promise<void> {
@@ -15,6 +16,8 @@ async function main(): Promise<void> {
   // The queue starts with the web process (it queues batch files); RHOMB_IN_PROCESS_WORKERS=0 leaves the jobs to `npm run worker`.
   await jobQueue();
   if (cfg.RHOMB_IN_PROCESS_WORKERS > 0) await startBatchWorkers(cfg.RHOMB_IN_PROCESS_WORKERS);
+  // Monte Carlo threads start (and warm up) now rather than on the first uncertainty request.
+  startMonteCarloPool().catch((err) => logger.error({ err }, "Monte Carlo worker threads did not start; they will be started on first use"));
   const app = createApp({ config: cfg, dataSource });
   const server = app.listen(cfg.PORT, cfg.HOST, () => {
     logger.info({ url: cfg.publicUrl }, "Rhomb is listening");

@@ -1,11 +1,13 @@
 /**
  * One Monte Carlo worker thread: computes blocks of samples with the pure function of
- * shared/physics and posts them back. Input errors travel back as plain data.
+ * shared/physics and posts them back. Input errors travel back as plain data. It warms the
+ * engine up before it reports ready (monteCarloWarmUp.ts).
  */
 import { parentPort } from "node:worker_threads";
 import { monteCarloBlock } from "../../shared/physics/monteCarlo";
 import { EngineInputError } from "../../shared/physics/errors";
 import type { BlockRequest, BlockReply } from "./monteCarloProtocol";
+import { warmUpEngine } from "./monteCarloWarmUp";
 
 const port = parentPort;
 if (!port) throw new Error("monteCarloWorker must run in a worker thread");
@@ -21,4 +23,5 @@ port.on("message", (request: BlockRequest) => {
   }
   port.postMessage(reply);
 });
+warmUpEngine();
 port.postMessage({ ready: true });
