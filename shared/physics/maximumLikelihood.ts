@@ -91,7 +91,7 @@ export function maximumLikelihood(
   const mInvSqrt = inverseSqrtTotalOperator(model, data.weights);
   // A positive definite start, needed only when the linear estimate has some μ_k ≤ 0.
   const mixed = () => fullRankStart(model, data, starts.positive());
-  let sigma = unconstrainedOptimum(linear, data, [() => starts.linear, mixed], threshold, budget) ?? mixed();
+  let sigma = unconstrainedOptimum(workspace(model), linear, data, [() => starts.linear, mixed], threshold, budget) ?? mixed();
   let search = positiveSearch(model, data, mInvSqrt, sigma, threshold, budget);
   for (let rebases = 0; search.gap > threshold && budget.left > 0 && rebases < MAX_REBASES; rebases++) {
     // Re-base in the current eigenbasis every few steps (directions that went to zero leave the
@@ -114,23 +114,34 @@ export function maximumLikelihood(
   };
 }
 
-/** What a face search keeps between bases and calls: one set per measurement model. */
-interface SearchWork {
+/**
+ * The solver's buffers for one shape (dimension and number of rows), reused by every
+ * reconstruction of that shape: typed arrays above 64 bytes live outside the V8 heap and cost
+ * microseconds each to allocate and collect, as much as a Newton step of a two-photon problem.
+ * Only scratch lives here; results never point into it.
+ */
+interface Workspace {
   rotated: AnalysedStates;
-  problem: PoissonNewton | null;
-  newton: DampedNewton | null;
+  face: PoissonNewton | null;
+  faceNewton: DampedNewton | null;
   theta: Float64Array;
+  unconstrained: UnconstrainedPoisson | null;
+  unconstrainedNewton: DampedNewton | null;
 }
 
-const workByModel = new WeakMap<MeasurementModel, SearchWork>();
+/** Shapes kept (the oldest is dropped beyond this). */
+const MAX_WORKSPACES = 6;
+const workspaces = new Map<string, Workspace>();
 
-function searchWork(model: MeasurementModel): SearchWork {
-  let w = workByModel.get(model);
+function workspace(model: MeasurementModel): Workspace {
+  const d = model.dimension;
+  const key = `${d}:${model.rows}`;
+  let w = workspaces.get(key);
   if (!w) {
-    const d = model.dimension;
     const rotated = { dimension: d, rows: model.rows, psiRe: new Float64Array(model.rows * d), psiIm: new Float64Array(model.rows * d) };
-    w = { rotated, problem: null, newton: null, theta: new Float64Array(d * d) };
-    workByModel.set(model, w);
+    w = { rotated, face: null, faceNewton: null, theta: new Float64Array(d * d), unconstrained: null, unconstrainedNewton: null };
+    if (workspaces.size >= MAX_WORKSPACES) workspaces.delete(workspaces.keys().next().value!);
+    workspaces.set(key, w);
   }
   return w;
 }
@@ -153,15 +164,15 @@ function positiveSearch(
   let rank = 0;
   for (let i = 0; i < d; i++) if (values[i] > floor) rank++;
   rank = Math.max(1, rank);
-  const work = searchWork(model);
+  const work = workspace(model);
   const { rotated, theta } = work;
   inBasisInto(model, u, rotated);
   const rotatedInvSqrt = multiply(multiply(adjoint(u), mInvSqrt), u);
-  if (work.problem) work.problem.reset(rotated, data, rank);
-  else work.problem = new PoissonNewton(rotated, data, rank);
-  const problem = work.problem;
-  work.newton ??= new DampedNewton(problem);
-  const newton = work.newton;
+  if (work.face) work.face.reset(rotated, data, rank);
+  else work.face = new PoissonNewton(rotated, data, rank);
+  const problem = work.face;
+  work.faceNewton ??= new DampedNewton(problem);
+  const newton = work.faceNewton;
   // Start at the positive part of `start`, scaled to the measured total (the best multiple).
   theta.fill(0);
   let total = 0;
@@ -246,12 +257,16 @@ function outsideFraction(y: CMatrix, col: number, support: { values: Float64Arra
  * with every μ_k > 0 and the lowest NLL (for a square system the linear estimate, which already
  * is the optimum: μ_k = n_k); null when some row has no counts (the problem is then unbounded).
  */
-function unconstrainedOptimum(linear: LinearSystem, data: PreparedCounts, starts: (() => CMatrix)[], threshold: number, budget: { left: number }): CMatrix | null {
+function unconstrainedOptimum(work: Workspace, linear: LinearSystem, data: PreparedCounts, starts: (() => CMatrix)[], threshold: number, budget: { left: number }): CMatrix | null {
   for (let k = 0; k < data.counts.length; k++) if (!(data.counts[k] > 0)) return null;
-  const problem = new UnconstrainedPoisson(linear, data);
-  const newton = new DampedNewton(problem);
+  if (work.unconstrained) work.unconstrained.reset(linear, data);
+  else work.unconstrained = new UnconstrainedPoisson(linear, data);
+  const problem = work.unconstrained;
+  work.unconstrainedNewton ??= new DampedNewton(problem);
+  const newton = work.unconstrainedNewton;
   // The feasible start of lowest NLL (with all counts positive the linear estimate usually is,
-  // and for a square system it is the optimum itself).
+  // and for a square system it is the optimum itself, so no other start is tried).
+  const square = linear.rows === linear.params;
   let x: Float64Array | null = null;
   let best = Infinity;
   for (const start of starts) {
@@ -262,6 +277,7 @@ function unconstrainedOptimum(linear: LinearSystem, data: PreparedCounts, starts
       best = f;
       x = candidate;
     }
+    if (square) break;
   }
   if (!x || !problem.evaluate(x)) return null;
   do {

@@ -84,6 +84,12 @@ export function normalised(v: CVector): CVector {
   return { re: v.re.map((x) => x * f), im: v.im.map((x) => x * f) };
 }
 
-function vec(re: number[], im: number[]): CVector {
-  return { re: Float64Array.from(re), im: Float64Array.from(im) };
+function vec(re: [number, number], im: [number, number]): CVector {
+  const r = new Float64Array(2);
+  const i = new Float64Array(2);
+  r[0] = re[0];
+  r[1] = re[1];
+  i[0] = im[0];
+  i[1] = im[1];
+  return { re: r, im: i };
 }

@@ -17,18 +17,29 @@ export class UnconstrainedPoisson implements NewtonProblem {
   readonly hessian: Float64Array;
   private readonly mu: Float64Array;
   private readonly change: Float64Array;
-  private readonly wa: Float64Array;
+  private wa: Float64Array = new Float64Array(0);
+  private linear!: LinearSystem;
+  private data!: PreparedCounts;
 
-  constructor(private readonly linear: LinearSystem, private readonly data: PreparedCounts) {
+  constructor(linear: LinearSystem, data: PreparedCounts) {
     const p = linear.params;
     this.size = p;
     this.gradient = new Float64Array(p);
     this.hessian = new Float64Array(p * p);
     this.mu = new Float64Array(linear.rows);
     this.change = new Float64Array(linear.rows);
+    this.reset(linear, data);
+  }
+
+  /** Another system of the same size (parameters and rows) and other counts: the buffers are reused. */
+  reset(linear: LinearSystem, data: PreparedCounts): void {
+    if (linear.params !== this.size || linear.rows !== this.mu.length) throw new Error("internal: UnconstrainedPoisson reused for another shape");
+    this.linear = linear;
+    this.data = data;
+    const p = linear.params;
     // w_k a_k, the gradient of μ_k, at the non-zero entries of the design (wa[e] for column nonzero[e])
     const { nonzero, nonzeroStart } = linear;
-    this.wa = new Float64Array(nonzero.length);
+    if (this.wa.length < nonzero.length) this.wa = new Float64Array(nonzero.length);
     for (let k = 0; k < linear.rows; k++) {
       for (let e = nonzeroStart[k]; e < nonzeroStart[k + 1]; e++) this.wa[e] = linear.design[k * p + nonzero[e]] * data.weights[k];
     }

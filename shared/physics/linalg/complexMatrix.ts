@@ -32,7 +32,10 @@ export function identity(n: number): CMatrix {
 }
 
 export function copy(a: CMatrix): CMatrix {
-  return { n: a.n, re: a.re.slice(), im: a.im.slice() };
+  const out = zeros(a.n);
+  out.re.set(a.re);
+  out.im.set(a.im);
+  return out;
 }
 
 export function fromPlain(m: DensityMatrix): CMatrix {
@@ -106,7 +109,12 @@ export function add(a: CMatrix, b: CMatrix, scaleB = 1): CMatrix {
 }
 
 export function scale(a: CMatrix, s: number): CMatrix {
-  return { n: a.n, re: a.re.map((x) => x * s), im: a.im.map((x) => x * s) };
+  const out = zeros(a.n);
+  for (let i = 0; i < a.re.length; i++) {
+    out.re[i] = a.re[i] * s;
+    out.im[i] = a.im[i] * s;
+  }
+  return out;
 }
 
 /** Real part of the trace (the imaginary part of a Hermitian matrix's trace is zero). */
