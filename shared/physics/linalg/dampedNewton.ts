@@ -40,12 +40,19 @@ export class DampedNewton {
   private readonly shifted: Float64Array;
   private readonly delta: Float64Array;
   private readonly rhs: Float64Array;
+  /** Positions of the free parameters, and their part of the right-hand side and the step. */
+  private readonly index: Int32Array;
+  private readonly rhsFree: Float64Array;
+  private readonly deltaFree: Float64Array;
 
   constructor(private readonly problem: NewtonProblem) {
     const n = problem.size;
     this.shifted = new Float64Array(n * n);
     this.delta = new Float64Array(n);
     this.rhs = new Float64Array(n);
+    this.index = new Int32Array(n);
+    this.rhsFree = new Float64Array(n);
+    this.deltaFree = new Float64Array(n);
   }
 
   /** Updates θ in place; null when no step lowers f at double precision. */
@@ -63,8 +70,12 @@ export class DampedNewton {
     return { decrease, alpha };
   }
 
+  /**
+   * Frozen parameters keep δ = 0, so the system is solved on the free ones only (the same
+   * numbers as with identity rows for the frozen ones, at (m/n)³ of the cost).
+   */
   private direction(): boolean {
-    const { problem, shifted, delta, rhs } = this;
+    const { problem, shifted, delta, rhs, index, rhsFree, deltaFree } = this;
     const n = problem.size;
     const h = problem.hessian;
     let meanDiag = 0;
@@ -74,26 +85,23 @@ export class DampedNewton {
     }
     meanDiag = Math.max(meanDiag / n, 1e-300);
     const free = problem.free;
+    let m = 0;
+    for (let i = 0; i < n; i++) if (!free || free[i]) index[m++] = i;
+    for (let a = 0; a < m; a++) rhsFree[a] = rhs[index[a]];
     for (const lambda of SHIFTS) {
-      shifted.set(h);
-      for (let i = 0; i < n; i++) shifted[i * n + i] += lambda * meanDiag;
-      if (free) freeze(shifted, rhs, free, n);
-      if (choleskyInPlace(shifted, n)) {
-        choleskySolveInPlace(shifted, n, rhs, delta);
+      for (let a = 0; a < m; a++) {
+        const row = index[a] * n;
+        for (let b = 0; b < m; b++) shifted[a * m + b] = h[row + index[b]];
+        shifted[a * m + a] += lambda * meanDiag;
+      }
+      if (choleskyInPlace(shifted, m)) {
+        choleskySolveInPlace(shifted, m, rhsFree, deltaFree);
+        delta.fill(0);
+        for (let a = 0; a < m; a++) delta[index[a]] = deltaFree[a];
         return true;
       }
     }
     return false;
-  }
-}
-
-/** Rows and columns of frozen parameters become those of the identity, their right-hand side 0. */
-function freeze(a: Float64Array, rhs: Float64Array, free: Uint8Array, n: number): void {
-  for (let i = 0; i < n; i++) {
-    if (free[i]) continue;
-    for (let j = 0; j < n; j++) a[i * n + j] = a[j * n + i] = 0;
-    a[i * n + i] = 1;
-    rhs[i] = 0;
   }
 }
 
