@@ -1,7 +1,6 @@
 import type { EntityManager } from "typeorm";
 import type { LabRole } from "@shared/schemas/roles";
 import { db } from "../db/dataSource";
-import { LabMembership } from "../entities/LabMembership";
 import { forbidden, notFound } from "../http/errors";
 import type { AuthUser } from "../http/auth";
 
@@ -29,7 +28,8 @@ export function allowedActions(role: LabRole | null | undefined): Record<LabActi
 }
 
 export async function roleInLab(userId: string, labId: string, em: EntityManager = db().manager): Promise<LabRole | null> {
-  const m = await em.findOne(LabMembership, { where: { userId, labId }, select: { role: true } });
+  // Plain SQL: asked on nearly every request (see loadUser in server/http/auth.ts).
+  const [m]: Array<{ role: LabRole }> = await em.query("SELECT role FROM lab_memberships WHERE user_id = $1 AND lab_id = $2", [userId, labId]);
   return m?.role ?? null;
 }
 

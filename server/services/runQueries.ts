@@ -97,11 +97,20 @@ export async function findRun(labId: string, runId: string, em: EntityManager = 
   return run;
 }
 
+/**
+ * One run with everything its page shows. The summary (row count, total, headline) is taken from
+ * the revisions and reconstructions loaded anyway — the same rule as HEADLINE_JOIN: the newest
+ * maximum-likelihood reconstruction of the current revision — so a run page costs four queries.
+ */
 export async function loadRunDetail(labId: string, runId: string, em: EntityManager = db().manager): Promise<RunDetail> {
-  await findRun(labId, runId, em);
-  const [summary] = await loadRunSummaries([runId], em);
-  const revisions = await em.find(RunRevision, { where: { runId }, relations: { createdBy: true }, order: { number: "ASC" } });
-  const reconstructions = await em.find(Reconstruction, { where: { runId }, relations: { createdBy: true }, order: { createdAt: "DESC", id: "DESC" } });
-  const attachments = await em.find(Attachment, { where: { runId }, relations: { createdBy: true }, order: { createdAt: "ASC" } });
-  return { ...summary, revisions, reconstructions, attachments };
+  const run = await findRun(labId, runId, em);
+  const [revisions, reconstructions, attachments] = await Promise.all([
+    em.find(RunRevision, { where: { runId }, relations: { createdBy: true }, order: { number: "ASC" } }),
+    em.find(Reconstruction, { where: { runId }, relations: { createdBy: true }, order: { createdAt: "DESC", id: "DESC" } }),
+    em.find(Attachment, { where: { runId }, relations: { createdBy: true }, order: { createdAt: "ASC" } }),
+  ]);
+  const current = revisions.find((r) => r.number === run.currentRevision);
+  if (!current) throw new Error(`run ${runId} has no revision ${run.currentRevision}`);
+  const headline = reconstructions.find((r) => r.revisionId === current.id && r.method === "mle") ?? null;
+  return { run, rowCount: current.rowCount, totalCounts: current.totalCounts, headline, revisions, reconstructions, attachments };
 }
