@@ -5,6 +5,7 @@ import { Attachment } from "../entities/Attachment";
 import { Reconstruction } from "../entities/Reconstruction";
 import { Run } from "../entities/Run";
 import { RunRevision } from "../entities/RunRevision";
+import { User } from "../entities/User";
 import { notFound } from "../http/errors";
 import { containsPattern, pageWindow } from "./listing";
 
@@ -90,6 +91,14 @@ export async function loadRunSummaries(ids: string[], em: EntityManager = db().m
   });
 }
 
+/** Users by id, with only what presenters show (id, name). */
+async function peopleById(em: EntityManager, ids: Array<string | null>): Promise<Map<string, User>> {
+  const wanted = [...new Set(ids.filter((x): x is string => !!x))];
+  if (!wanted.length) return new Map();
+  const rows: Array<{ id: string; display_name: string }> = await em.query("SELECT id, display_name FROM users WHERE id = ANY($1)", [wanted]);
+  return new Map(rows.map((r) => [r.id, Object.assign(new User(), { id: r.id, displayName: r.display_name })]));
+}
+
 /** A run of this lab, or 404. */
 export async function findRun(labId: string, runId: string, em: EntityManager = db().manager): Promise<Run> {
   const run = await em.findOne(Run, { where: { id: runId, labId }, relations: { session: { source: true }, createdBy: true } });
@@ -105,10 +114,13 @@ export async function findRun(labId: string, runId: string, em: EntityManager = 
 export async function loadRunDetail(labId: string, runId: string, em: EntityManager = db().manager): Promise<RunDetail> {
   const run = await findRun(labId, runId, em);
   const [revisions, reconstructions, attachments] = await Promise.all([
-    em.find(RunRevision, { where: { runId }, relations: { createdBy: true }, order: { number: "ASC" } }),
-    em.find(Reconstruction, { where: { runId }, relations: { createdBy: true }, order: { createdAt: "DESC", id: "DESC" } }),
-    em.find(Attachment, { where: { runId }, relations: { createdBy: true }, order: { createdAt: "ASC" } }),
+    em.find(RunRevision, { where: { runId }, order: { number: "ASC" } }),
+    em.find(Reconstruction, { where: { runId }, order: { createdAt: "DESC", id: "DESC" } }),
+    em.find(Attachment, { where: { runId }, order: { createdAt: "ASC" } }),
   ]);
+  // The few people behind these rows, in one query, rather than a users join per table.
+  const people = await peopleById(em, [...revisions, ...reconstructions, ...attachments].map((x) => x.createdById));
+  for (const x of [...revisions, ...reconstructions, ...attachments]) x.createdBy = x.createdById ? (people.get(x.createdById) ?? null) : null;
   const current = revisions.find((r) => r.number === run.currentRevision);
   if (!current) throw new Error(`run ${runId} has no revision ${run.currentRevision}`);
   const headline = reconstructions.find((r) => r.revisionId === current.id && r.method === "mle") ?? null;
