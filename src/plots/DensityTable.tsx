@@ -1,10 +1,14 @@
 import { formatWithUncertainty } from "@shared/format/uncertainty";
 import { basisLabels, PART_NAME, type ComplexMatrix, type Part } from "./densityModel";
 
-/** ρ as tables of numbers with their uncertainties: the accessible view of the state. */
+/**
+ * ρ as tables of numbers with their uncertainties: the accessible view of the state. Re and Im
+ * sit side by side only on wide screens: with uncertainties a 4×4 table needs about 580 px, and
+ * on paper a clipped scroll box would hide columns, so print stacks them.
+ */
 export function DensityTable({ rho, sigma }: { rho: ComplexMatrix; sigma?: ComplexMatrix | null }) {
   return (
-    <div className="grid gap-4 lg:grid-cols-2">
+    <div className="grid gap-4 2xl:grid-cols-2 print:grid-cols-1">
       {(["re", "im"] as const).map((part) => (
         <PartTable key={part} part={part} rho={rho} sigma={sigma} />
       ))}
@@ -15,7 +19,7 @@ export function DensityTable({ rho, sigma }: { rho: ComplexMatrix; sigma?: Compl
 function PartTable({ part, rho, sigma }: { part: Part; rho: ComplexMatrix; sigma?: ComplexMatrix | null }) {
   const labels = basisLabels(rho.re.length);
   return (
-    <div className="overflow-x-auto">
+    <div className="overflow-x-auto print:overflow-visible">
       <table className="w-full border-collapse text-sm">
         <caption className="mb-1 text-left font-bold text-ink">
           {PART_NAME[part]} ρ{sigma ? " (± one standard deviation)" : ""}
