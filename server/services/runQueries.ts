@@ -99,6 +99,19 @@ async function peopleById(em: EntityManager, ids: Array<string | null>): Promise
   return new Map(rows.map((r) => [r.id, Object.assign(new User(), { id: r.id, displayName: r.display_name })]));
 }
 
+/**
+ * Runs the queries side by side on the pool, or one after the other inside a transaction: a
+ * transaction has a single connection, and overlapping queries on one pg client are deprecated
+ * (pg 8 queues them and warns; pg 9 will refuse them).
+ */
+async function inParallelUnlessTransaction<T extends readonly (() => Promise<unknown>)[]>(em: EntityManager, queries: T): Promise<{ -readonly [K in keyof T]: Awaited<ReturnType<T[K]>> }> {
+  type Results = { -readonly [K in keyof T]: Awaited<ReturnType<T[K]>> };
+  if (!em.queryRunner) return (await Promise.all(queries.map((q) => q()))) as Results;
+  const results: unknown[] = [];
+  for (const q of queries) results.push(await q());
+  return results as Results;
+}
+
 /** A run of this lab, or 404. */
 export async function findRun(labId: string, runId: string, em: EntityManager = db().manager): Promise<Run> {
   const run = await em.findOne(Run, { where: { id: runId, labId }, relations: { session: { source: true }, createdBy: true } });
@@ -113,11 +126,11 @@ export async function findRun(labId: string, runId: string, em: EntityManager = 
  */
 export async function loadRunDetail(labId: string, runId: string, em: EntityManager = db().manager): Promise<RunDetail> {
   const run = await findRun(labId, runId, em);
-  const [revisions, reconstructions, attachments] = await Promise.all([
-    em.find(RunRevision, { where: { runId }, order: { number: "ASC" } }),
-    em.find(Reconstruction, { where: { runId }, order: { createdAt: "DESC", id: "DESC" } }),
-    em.find(Attachment, { where: { runId }, order: { createdAt: "ASC" } }),
-  ]);
+  const [revisions, reconstructions, attachments] = await inParallelUnlessTransaction(em, [
+    () => em.find(RunRevision, { where: { runId }, order: { number: "ASC" } }),
+    () => em.find(Reconstruction, { where: { runId }, order: { createdAt: "DESC", id: "DESC" } }),
+    () => em.find(Attachment, { where: { runId }, order: { createdAt: "ASC" } }),
+  ] as const);
   // The few people behind these rows, in one query, rather than a users join per table.
   const people = await peopleById(em, [...revisions, ...reconstructions, ...attachments].map((x) => x.createdById));
   for (const x of [...revisions, ...reconstructions, ...attachments]) x.createdBy = x.createdById ? (people.get(x.createdById) ?? null) : null;
