@@ -1,5 +1,6 @@
 import { Link, useParams, useSearchParams } from "react-router-dom";
 import type { BellAngles } from "@shared/physics/bell";
+import { BackLink } from "../components/BackLink";
 import { PageTitle } from "../components/PageTitle";
 import { Panel } from "../components/Panel";
 import { QueryState } from "../components/QueryState";
@@ -43,11 +44,7 @@ function BellTest({ labId, runId }: { labId: string; runId: string }) {
     update(a ? { a: String(a.aDeg), a2: String(a.aPrimeDeg), b: String(a.bDeg), b2: String(a.bPrimeDeg) } : { a: undefined, a2: undefined, b: undefined, b2: undefined });
   return (
     <>
-      <p className="mb-1 text-sm">
-        <Link className="font-bold text-petrol-700 underline" to={`/labs/${labId}/runs/${runId}`}>
-          ← Run
-        </Link>
-      </p>
+      <BackLink to={`/labs/${labId}/runs/${runId}`}>Run</BackLink>
       <QueryState query={test} what="the Bell test">
         {(t) => (
           <>

@@ -1,5 +1,6 @@
-import { Link, useParams, useSearchParams } from "react-router-dom";
+import { useParams, useSearchParams } from "react-router-dom";
 import { useLabSession } from "../api/labSessions";
+import { BackLink } from "../components/BackLink";
 import { PageTitle } from "../components/PageTitle";
 import { Panel } from "../components/Panel";
 import { QueryState } from "../components/QueryState";
@@ -33,11 +34,7 @@ function FringeScan({ labId, runId }: { labId: string; runId: string }) {
     setSearch(c.background === "rate" ? { background: "rate", rate: String(c.backgroundRate), sigma: String(c.backgroundSigma) } : c.background === "accidentals" ? { background: "accidentals" } : {}, { replace: true });
   return (
     <>
-      <p className="mb-1 text-sm">
-        <Link className="font-bold text-petrol-700 underline" to={`/labs/${labId}/runs/${runId}`}>
-          ← Run
-        </Link>
-      </p>
+      <BackLink to={`/labs/${labId}/runs/${runId}`}>Run</BackLink>
       <QueryState query={fit} what="the fringe fit">
         {(a) => (
           <>

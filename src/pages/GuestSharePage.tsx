@@ -1,5 +1,6 @@
-import { Link, useParams } from "react-router-dom";
+import { useParams } from "react-router-dom";
 import { useGuestShare } from "../api/shares";
+import { BackLink } from "../components/BackLink";
 import { Button } from "../components/Button";
 import { RequireSignIn } from "../features/account/RequireSignIn";
 import { ShareProblem } from "../features/sharing/ShareProblem";
@@ -21,9 +22,7 @@ function GuestShare({ shareId }: { shareId: string }) {
   return (
     <>
       <div className="mb-3 flex flex-wrap items-center justify-between gap-2 print:hidden">
-        <Link className="font-bold text-petrol-700 underline" to="/shared-with-me">
-          ← Shared with me
-        </Link>
+        <BackLink inline to="/shared-with-me">Shared with me</BackLink>
         {view.data && (
           <Button variant="secondary" size="sm" onClick={() => window.print()}>
             Print or save as PDF

@@ -1,4 +1,5 @@
-import { Link, useParams } from "react-router-dom";
+import { useParams } from "react-router-dom";
+import { BackLink } from "../components/BackLink";
 import { PageTitle } from "../components/PageTitle";
 import { RequireSignIn } from "../features/account/RequireSignIn";
 import { ImportBundleForm } from "../features/exports/ImportBundleForm";
@@ -9,11 +10,7 @@ export function ImportBundlePage() {
   const { labId = "" } = useParams();
   return (
     <RequireSignIn>
-      <p className="mb-1 text-sm">
-        <Link className="font-bold text-petrol-700 underline" to={labPaths.home(labId)}>
-          ← Lab home
-        </Link>
-      </p>
+      <BackLink to={labPaths.home(labId)}>Lab home</BackLink>
       <PageTitle subtitle="Runs, every revision of their raw counts, reconstructions and uploaded files come in as they were, with new ids, in one step: all of it or nothing.">Import a session bundle</PageTitle>
       <ImportBundleForm labId={labId} />
     </RequireSignIn>

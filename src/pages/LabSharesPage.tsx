@@ -1,5 +1,6 @@
 import { Link, useParams } from "react-router-dom";
 import { useLab } from "../api/labs";
+import { BackLink } from "../components/BackLink";
 import { PageTitle } from "../components/PageTitle";
 import { Panel } from "../components/Panel";
 import { QueryState } from "../components/QueryState";
@@ -16,11 +17,7 @@ export function LabSharesPage() {
       <QueryState query={lab} what="the lab">
         {(l) => (
           <>
-            <p className="mb-1 text-sm">
-              <Link className="font-bold text-petrol-700 underline" to={`/labs/${l.id}`}>
-                ← {l.name}
-              </Link>
-            </p>
+            <BackLink to={`/labs/${l.id}`}>{l.name}</BackLink>
             <PageTitle subtitle="Links and guest shares that open one session, run or state read-only to people outside the lab. Share an item from its page.">Shares</PageTitle>
             <Panel title="All shares, newest first">
               <ShareList labId={labId} canRevoke={l.can.write} showItem />

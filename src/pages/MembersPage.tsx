@@ -1,5 +1,6 @@
-import { Link, useParams } from "react-router-dom";
+import { useParams } from "react-router-dom";
 import { useLab } from "../api/labs";
+import { BackLink } from "../components/BackLink";
 import { PageTitle } from "../components/PageTitle";
 import { Panel } from "../components/Panel";
 import { QueryState } from "../components/QueryState";
@@ -24,11 +25,7 @@ function LabPeople({ labId }: { labId: string }) {
     <QueryState query={lab} what="the lab">
       {(l) => (
         <>
-          <p className="mb-1 text-sm">
-            <Link className="font-bold text-petrol-700 underline" to={`/labs/${l.id}`}>
-              ← {l.name}
-            </Link>
-          </p>
+          <BackLink to={`/labs/${l.id}`}>{l.name}</BackLink>
           <PageTitle subtitle={l.can.manage ? "Invite people, choose their roles, or remove them." : "Who works in this lab, and in which role."}>People</PageTitle>
           <div className="space-y-4">
             <Panel title="Members">

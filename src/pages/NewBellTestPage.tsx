@@ -1,5 +1,6 @@
-import { Link, useParams } from "react-router-dom";
+import { useParams } from "react-router-dom";
 import { useLabSession } from "../api/labSessions";
+import { BackLink } from "../components/BackLink";
 import { PageTitle } from "../components/PageTitle";
 import { QueryState } from "../components/QueryState";
 import { RequireSignIn } from "../features/account/RequireSignIn";
@@ -13,11 +14,7 @@ export function NewBellTestPage() {
       <QueryState query={session} what="the session">
         {(s) => (
           <>
-            <p className="mb-1 text-sm">
-              <Link className="font-bold text-petrol-700 underline" to={`/labs/${labId}/sessions/${sessionId}`}>
-                ← {s.title}
-              </Link>
-            </p>
+            <BackLink to={`/labs/${labId}/sessions/${sessionId}`}>{s.title}</BackLink>
             <PageTitle subtitle="Sixteen coincidence counts: four analyser pairs, each with its orthogonal outcomes.">New Bell test</PageTitle>
             <BellEntryForm labId={labId} sessionId={sessionId} />
           </>

@@ -1,5 +1,6 @@
-import { Link, useParams } from "react-router-dom";
+import { useParams } from "react-router-dom";
 import { useLabSession } from "../api/labSessions";
+import { BackLink } from "../components/BackLink";
 import { PageTitle } from "../components/PageTitle";
 import { QueryState } from "../components/QueryState";
 import { RequireSignIn } from "../features/account/RequireSignIn";
@@ -13,11 +14,7 @@ export function NewFringeScanPage() {
       <QueryState query={session} what="the session">
         {(s) => (
           <>
-            <p className="mb-1 text-sm">
-              <Link className="font-bold text-petrol-700 underline" to={`/labs/${labId}/sessions/${sessionId}`}>
-                ← {s.title}
-              </Link>
-            </p>
+            <BackLink to={`/labs/${labId}/sessions/${sessionId}`}>{s.title}</BackLink>
             <PageTitle subtitle="Coincidences against arm B's polariser angle, with arm A fixed; one scan per setting of arm A.">New fringe scan</PageTitle>
             <FringeEntryForm labId={labId} sessionId={sessionId} />
           </>

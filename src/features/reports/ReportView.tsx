@@ -1,7 +1,7 @@
 import { useEffect } from "react";
-import { Link } from "react-router-dom";
 import type { ShareItemType } from "@shared/schemas/shares";
 import { useReport } from "../../api/shares";
+import { BackLink } from "../../components/BackLink";
 import { Button } from "../../components/Button";
 import { QueryState } from "../../components/QueryState";
 import { labPaths } from "../notebook/labPaths";
@@ -29,9 +29,7 @@ export function ReportView({ labId, itemType, itemId }: { labId: string; itemTyp
     <DocumentFrame
       toolbar={
         <>
-          <Link className="text-sm font-bold text-petrol-700 underline" to={back.to(labId, itemId)}>
-            ← {back.label}
-          </Link>
+          <BackLink inline to={back.to(labId, itemId)}>{back.label}</BackLink>
           <Button size="sm" onClick={() => window.print()} disabled={!report.data}>
             Print or save as PDF
           </Button>
