@@ -18,6 +18,7 @@
  *   row 7, column "HV": "12x" is not a whole number ≥ 0
  */
 import Papa from "papaparse";
+import { CsvLineNumbers } from "./csvLineNumbers";
 import { LIMITS } from "../limits";
 import type { CreateRun } from "../schemas/runs";
 import type { CountsRow } from "../physics/types";
@@ -217,8 +218,7 @@ function fileError(row: number, column: string | null, message: string): RunFile
 /** Records with their 1-based file line; stops after `limit` records when given. */
 function readRecords(input: string, limit = Infinity): Record_[] {
   const text = input.replace(/^\uFEFF/, "");
-  const newlines: number[] = [];
-  for (let i = 0; i < text.length; i++) if (text[i] === "\n") newlines.push(i);
+  const lineNumbers = new CsvLineNumbers(text);
   const records: Record_[] = [];
   let failure: RunFileError | null = null;
   Papa.parse<string[]>(text, {
@@ -226,7 +226,7 @@ function readRecords(input: string, limit = Infinity): Record_[] {
     skipEmptyLines: "greedy",
     delimitersToGuess: [",", ";", "\t"],
     step: (result, parser) => {
-      const line = lineBefore(text, newlines, result.meta.cursor);
+      const line = lineNumbers.lineBefore(result.meta.cursor);
       if (result.errors.length) {
         failure = fileError(line, null, result.errors[0].message);
         parser.abort();
@@ -240,16 +240,3 @@ function readRecords(input: string, limit = Infinity): Record_[] {
   return records;
 }
 
-/** 1-based line of the record that ends just before `cursor`. */
-function lineBefore(text: string, newlines: number[], cursor: number): number {
-  let q = cursor - 1;
-  while (q > 0 && (text[q] === "\n" || text[q] === "\r")) q--;
-  let lo = 0;
-  let hi = newlines.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >> 1;
-    if (newlines[mid] < q) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo + 1;
-}

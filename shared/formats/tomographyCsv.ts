@@ -24,6 +24,7 @@
  *   row 7, column "counts": "12x" is not a whole number ≥ 0
  */
 import Papa from "papaparse";
+import { CsvLineNumbers } from "./csvLineNumbers";
 import type { ArmAngles, CountsRow, Port } from "../physics/types";
 
 /** Same limits as the run schema (shared/schemas/runs.ts). */
@@ -61,8 +62,7 @@ export class TomographyCsvError extends Error {
 
 export function parseTomographyCsv(input: string, options: TomographyCsvOptions = {}): ParsedTomographyCsv {
   const text = input.replace(/^\uFEFF/, "");
-  const newlines: number[] = [];
-  for (let i = 0; i < text.length; i++) if (text[i] === "\n") newlines.push(i);
+  const lineNumbers = new CsvLineNumbers(text);
   const records: { fields: string[]; line: number }[] = [];
   let parseError: TomographyCsvError | null = null;
   Papa.parse<string[]>(text, {
@@ -70,11 +70,11 @@ export function parseTomographyCsv(input: string, options: TomographyCsvOptions 
     skipEmptyLines: "greedy",
     delimitersToGuess: [",", ";", "\t"],
     step: (result, parser) => {
-      const line = lineOf(text, newlines, result.meta.cursor);
+      const line = lineNumbers.lineBefore(result.meta.cursor);
       if (result.errors.length) {
         // An unclosed quote swallows the rest of the file: name the line where the quote opened.
         const [first] = result.errors;
-        const at = first.type === "Quotes" && typeof first.index === "number" ? lineOf(text, newlines, first.index + 1) : line;
+        const at = first.type === "Quotes" && typeof first.index === "number" ? lineNumbers.lineBefore(first.index + 1) : line;
         parseError = new TomographyCsvError(at, null, first.message);
         parser.abort();
         return;
@@ -220,19 +220,6 @@ function quote(raw: string): string {
   return JSON.stringify(raw.length > 40 ? `${raw.slice(0, 40)}…` : raw);
 }
 
-/** 1-based line of the row that ends just before `cursor`. */
-function lineOf(text: string, newlines: number[], cursor: number): number {
-  let q = cursor - 1;
-  while (q > 0 && (text[q] === "\n" || text[q] === "\r")) q--;
-  let lo = 0;
-  let hi = newlines.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >> 1;
-    if (newlines[mid] < q) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo + 1;
-}
 
 /**
  * Writes rows with label settings in the same format (the inverse of parseTomographyCsv).
