@@ -5,7 +5,7 @@ import type { Reconstruction } from "../entities/Reconstruction";
 import type { Run } from "../entities/Run";
 import type { RunRevision } from "../entities/RunRevision";
 import type { Source } from "../entities/Source";
-import { NO_CONDITIONS } from "../presenters/sharedSnapshot";
+import { NO_CONDITIONS, presentSnapshotReconstruction } from "../presenters/sharedSnapshot";
 
 /**
  * Entities → the parts of a session bundle, field by field (never spread from an entity, so no
@@ -45,22 +45,11 @@ export function bundleRun(run: Run, revisions: RunRevision[], reconstructions: R
     currentRevision: run.currentRevision,
     createdAt: run.createdAt.toISOString(),
     revisions: revisions.map((v) => ({ number: v.number, rows: v.rows, reason: v.reason, changes: v.changes, createdAt: v.createdAt.toISOString() })),
-    reconstructions: reconstructions.map((c) => ({
-      revisionNumber: numberOf.get(c.revisionId)!,
-      method: c.method,
-      corrections: c.corrections,
-      conventions: c.conventions,
-      rho: c.rho,
-      eigenvalues: c.eigenvalues,
-      physical: c.physical,
-      metrics: c.metrics,
-      uncertainties: c.uncertainties && c.monteCarloSeed !== null ? { samples: c.monteCarloSamples, seed: c.monteCarloSeed, metrics: c.uncertainties.metrics, rho: c.uncertainties.rho } : null,
-      fit: { logLikelihood: c.logLikelihood, iterations: c.iterations, converged: c.converged, tolerance: c.tolerance },
-      counts: { total: c.totalCounts, clippedRows: c.clippedRows },
-      warnings: c.warnings.map((w) => ({ code: w.code, message: w.message })),
-      engineVersion: c.engineVersion,
-      createdAt: c.createdAt.toISOString(),
-    })),
+    // The same fields a share shows, without the database id (an import makes new rows).
+    reconstructions: reconstructions.map((c) => {
+      const { id: _id, ...fields } = presentSnapshotReconstruction(c, numberOf.get(c.revisionId)!);
+      return fields;
+    }),
     attachments: attachments.map((a) => ({ fileName: a.fileName, contentType: a.contentType, sizeBytes: a.sizeBytes, sha256: a.sha256, contentBase64: a.content.toString("base64"), createdAt: a.createdAt.toISOString() })),
   };
 }
