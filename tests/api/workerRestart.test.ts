@@ -1,4 +1,4 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, afterEach, beforeAll, describe, expect, it } from "vitest";
 import { resetConfigForTests } from "../../server/config";
 import { labWithRoles, type LabFixture } from "../support/clients";
 import { psiMinusRows, sessionIn } from "../support/notebook";
@@ -28,8 +28,16 @@ describe("restarts in the middle of a batch: every file is stored exactly once",
     f = await labWithRoles(t);
     secret = (await f.clients.member.post("/api/tokens", { name: "Restart test", labId: f.lab.id }).expect(201)).body.secret;
   });
+  // Each test's processes end with it: a server left running from one test would keep taking
+  // the next test's jobs with its in-process workers (which once finished a whole batch that the
+  // second test meant a lone worker to finish).
+  afterEach(async () => {
+    for (const p of alive.splice(0)) {
+      if (p.child.exitCode === null && p.child.signalCode === null) p.child.kill("SIGKILL");
+      await p.exited;
+    }
+  });
   afterAll(async () => {
-    for (const p of alive) if (p.child.exitCode === null) p.child.kill("SIGKILL");
     await t.close();
   });
 
