@@ -10,7 +10,9 @@ export function SnapshotSetup({ setup }: { setup: Snapshot["setup"] }) {
   const calibrated = s.calibration.some((a) => a.qwp.fastAxisOffsetDeg || a.qwp.retardanceErrorDeg || a.hwp.fastAxisOffsetDeg || a.hwp.retardanceErrorDeg);
   const items: [string, string][] = [
     ["Source", orDash([src.name, src.crystal])],
-    ["Pump laser", orDash([src.pumpLaser, s.pumpWavelengthNm !== null && `${formatDecimal(s.pumpWavelengthNm, 3)} nm`, s.pumpPowerMw !== null && `${formatDecimal(s.pumpPowerMw, 3)} mW`])],
+    ["Pump laser", src.pumpLaser || "—"],
+    // The session's own pump settings, as on the session page (the laser's text may name a wavelength too).
+    ["Pump", orDash([s.pumpWavelengthNm !== null && `${formatDecimal(s.pumpWavelengthNm, 3)} nm`, s.pumpPowerMw !== null && `${formatDecimal(s.pumpPowerMw, 3)} mW`])],
     ["Pair wavelength", src.wavelengthNm !== null ? `${formatDecimal(src.wavelengthNm, 3)} nm` : "—"],
     ["Target state", BELL_SYMBOL[src.targetState]],
     ["Session", `${s.title}, ${s.date}`],
