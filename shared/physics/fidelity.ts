@@ -19,6 +19,11 @@ export function pureStateFidelity(rho: CMatrix, psi: CVector): number {
 }
 
 /**
+ * Mixed-state fidelity (Tr √(√σ ρ √σ))² (Uhlmann, Rep. Math. Phys. 9, 273 (1976); Jozsa,
+ * J. Mod. Opt. 41, 2315 (1994)). Symmetric in ρ and σ for physical states, so this equals the
+ * contract's (Tr √(√ρ σ √ρ))²; we take the root of the target σ, which is always positive,
+ * so the value stays defined when ρ is a non-physical linear estimate.
+ *
  * Eigenvalues of √σ ρ √σ below 4·d·ε·λ_max are rounding noise of zero (a rank-deficient
  * state); left in, their square roots (~1e-8 each) would spoil the sum.
  */

@@ -127,7 +127,13 @@ describe("CHSH from counts", () => {
     const rows = rounded(expectedRows(PHI_PLUS, STANDARD_BELL_ANGLES, 2000));
     const r = chshFromRows(rows, STANDARD_BELL_ANGLES);
     expect(r.significance).toBeCloseTo((Math.abs(r.s) - 2) / r.sigmaS, 14);
-    expect(r.significance).toBeGreaterThan(10);
+    // By hand: each analyser pair has 854 + 854 coincident and 146 + 146 anti-coincident counts
+    // (2000·cos²22.5°/2 rounded), so E = ±1416/2000 and S = 4·0.708 = 2.832; Poisson
+    // propagation gives σ_E² = 4·1708·292/2000³ for each E, σ_S = 2σ_E = 0.031583, and
+    // (2.832 − 2)/0.031583 = 26.343 (follows from the definitions, physics.md §7).
+    expect(r.s).toBeCloseTo(2.832, 12);
+    expect(r.sigmaS).toBeCloseTo(0.0315828, 6);
+    expect(r.significance).toBeCloseTo(26.3435, 3);
   });
 
   it("names the missing analyser pair and duplicated rows", () => {

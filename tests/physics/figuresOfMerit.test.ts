@@ -23,6 +23,7 @@ describe("Werner states ρ = p|ψ⁻⟩⟨ψ⁻| + (1−p) I/4 — Werner, Phys.
       expect(f.purity).toBeCloseTo((1 + 3 * p * p) / 4, 12);
       // Vidal & Werner, Phys. Rev. A 65, 032314 (2002): negativity max(0, (3p − 1)/4)
       expect(f.negativity).toBeCloseTo(Math.max(0, (3 * p - 1) / 4), 12);
+      // linear entropy normalised by d/(d − 1) = 4/3, so the maximally mixed state gives 1 (from memory)
       expect(f.linearEntropy).toBeCloseTo((4 / 3) * (1 - (1 + 3 * p * p) / 4), 12);
       // eigenvalues (1+3p)/4 and (1−p)/4 (three times): von Neumann entropy in bits
       const a = (1 + 3 * p) / 4;

@@ -67,7 +67,7 @@ describe("fringe fit", () => {
       if (Math.abs(fit.phaseDeg - truth.phase) <= fit.sigmaPhaseDeg) coveredPhase++;
       pulls += ((fit.visibility - truth.v) / fit.sigmaVisibility) ** 2;
     }
-    // A 1σ interval covers 68.3 % (normal distribution); with 600 trials the binomial spread is
+    // A 1σ interval covers 68.3 % (normal distribution; common practice, no source); with 600 trials the binomial spread is
     // ±1.9 %, so [0.62, 0.75] is a ±3.5σ band.
     expect(coveredV / trials).toBeGreaterThan(0.62);
     expect(coveredV / trials).toBeLessThan(0.75);
@@ -86,6 +86,7 @@ describe("fringe fit", () => {
     expect(fit.degreesOfFreedom).toBe(9);
   });
 
+  // Follows from the model C(θ) = C₀[1 + V cos 2(θ − θ₀)] + B: a shift of B by δ moves V by −V δ/C₀.
   it("propagates the background's uncertainty: σ_V grows by V/C₀ · σ_B in quadrature", () => {
     const points = scan(model(1000, 0.9, 0, 20), ANGLES).map((p) => ({ ...p, counts: Math.round(p.counts) }));
     const a = fitFringe(points, { backgroundRate: 20 });
@@ -100,6 +101,7 @@ describe("fringe fit", () => {
 });
 
 describe("visibility from raw extremes", () => {
+  // First-order (delta-method) propagation of Poisson σ = √C: common practice, no source.
   it("is (C_max − C_min)/(C_max + C_min) with first-order Poisson σ", () => {
     const points = [{ angleDeg: 0, counts: 990 }, { angleDeg: 45, counts: 500 }, { angleDeg: 90, counts: 10 }];
     const v = visibilityFromExtremes(points);
@@ -122,6 +124,7 @@ describe("bases", () => {
     expect(fringeBasis(22.5)).toBe("other");
   });
 
+  // Inverse-variance weighting of independent measurements: common practice, no source.
   it("collects visibilities per basis with inverse-variance weights", () => {
     const out = visibilitiesByBasis([
       { basis: "HV", visibility: 0.98, sigma: 0.01 },

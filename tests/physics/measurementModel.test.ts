@@ -54,6 +54,8 @@ describe("setting sheet: angles from the inverse of the model", () => {
       }
     });
   }
+  // The angles every lab turns to (common practice, no source); they follow from the waveplate
+  // model of physics.md §2; the neighbouring tests check the analysed states themselves.
   it("ideal plates give the familiar angles (H 0/0, V 0/45, D 45/22.5, A 45/−22.5, R 0/−22.5, L 0/22.5)", () => {
     const table = Object.fromEntries(LETTERS.map((l) => [l, anglesForLetter(l, "R=H+iV")]));
     expect([table.H.qwpDeg, table.H.hwpDeg]).toEqual([0, 0]);
