@@ -14,10 +14,13 @@ const NAV: NavItem[] = [
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
-/** Inside a lab (/labs/:labId/…), the lab's notebook pages come first. */
-function useNav(): NavItem[] {
+/**
+ * Inside a lab (/labs/:labId/…) the lab's notebook pages come first — for its members only
+ * (`inLab` false hides them from someone who followed a link into a lab not theirs).
+ */
+function useNav(inLab: (labId: string) => boolean): NavItem[] {
   const labId = useMatch("/labs/:labId/*")?.params.labId;
-  if (!labId || !UUID.test(labId)) return NAV;
+  if (!labId || !UUID.test(labId) || !inLab(labId)) return NAV;
   return [
     { to: `/labs/${labId}`, label: "Lab home", end: true },
     { to: `/labs/${labId}/sources`, label: "Sources" },
@@ -36,9 +39,9 @@ const linkClass = ({ isActive }: { isActive: boolean }) =>
   ].join(" ");
 
 /** The top bar: mark, wordmark, primary navigation, and a slot for the account menu. */
-export function AppHeader({ nav: navProp, right }: { nav?: NavItem[]; right?: React.ReactNode }) {
-  const labNav = useNav();
-  const nav = navProp ?? labNav;
+export function AppHeader({ nav: navProp, right, inLab = () => true, extraNav = [] }: { nav?: NavItem[]; right?: React.ReactNode; inLab?: (labId: string) => boolean; extraNav?: NavItem[] }) {
+  const labNav = useNav(inLab);
+  const nav = [...(navProp ?? labNav), ...extraNav];
   return (
     <header className="border-b-2 border-petrol-700 bg-paper-raised">
       <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-2.5">

@@ -1,4 +1,6 @@
 import type { UseQueryResult } from "@tanstack/react-query";
+import { Link } from "react-router-dom";
+import { ApiError } from "../api/client";
 import { Alert } from "./Alert";
 
 /**
@@ -14,6 +16,24 @@ export function QueryState<T>({ query, what, children }: { query: UseQueryResult
     );
   }
   if (query.isError) {
+    // Not found or not allowed will not change by asking again: say so, and offer a way on.
+    // The API answers 404 for items of labs one is not in, so both mean "not for you, or gone".
+    const status = query.error instanceof ApiError ? query.error.status : null;
+    if (status === 404 || status === 403) {
+      return (
+        <Alert kind="error" title={`No access to ${what}`}>
+          {query.error.message} It may have been deleted, or it belongs to a lab you are not a member of. Items shared with you are under{" "}
+          <Link className="font-bold text-petrol-700 underline" to="/shared-with-me">
+            Shared with me
+          </Link>
+          ; your labs are on the{" "}
+          <Link className="font-bold text-petrol-700 underline" to="/">
+            home page
+          </Link>
+          .
+        </Alert>
+      );
+    }
     return (
       <Alert kind="error" title={`Could not load ${what}`}>
         {query.error.message}{" "}

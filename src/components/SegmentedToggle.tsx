@@ -20,7 +20,7 @@ export function SegmentedToggle<T extends string>({ label, options, value, onCha
           <label
             key={o.value}
             className={[
-              "cursor-pointer rounded px-3 py-1 text-sm font-bold has-[:focus-visible]:outline-3 has-[:focus-visible]:outline-petrol-500",
+              "cursor-pointer rounded px-3 py-1 text-sm font-bold has-[:focus-visible]:outline-3 has-[:focus-visible]:outline-offset-2 has-[:focus-visible]:outline-petrol-500 has-[:focus-visible]:underline has-[:focus-visible]:decoration-2 has-[:focus-visible]:underline-offset-4",
               o.value === value ? "bg-petrol-700 text-paper-raised" : "text-ink-soft hover:bg-paper-sunk",
               o.disabled ? "cursor-not-allowed opacity-50" : "",
             ].join(" ")}

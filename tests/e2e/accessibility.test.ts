@@ -66,6 +66,7 @@ async function check(b: Browser, name: string, path: string, ready: (p: Browser[
   expect(violations, JSON.stringify(violations, null, 1)).toEqual([]);
   const walk = await walkWithTab(page);
   expect(walk.missed, `reached by Tab: ${walk.reached.join(" | ")}`).toEqual([]);
+  expect(walk.unmarked, "focused without a visible focus indicator").toEqual([]);
   expect(b.errors).toEqual([]);
 }
 

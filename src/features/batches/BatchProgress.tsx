@@ -77,7 +77,7 @@ function Outcome({ batch }: { batch: BatchDto }) {
   const others = [c.stored && `the other ${c.stored} were stored as new runs`, c.duplicate && `${c.duplicate} had been stored before and were not stored again`].filter(Boolean).join("; ");
   return (
     <Alert kind="caution" title={`${c.failed} of ${batch.fileCount} files ${c.failed === 1 ? "was" : "were"} not stored`}>
-      {c.failed === 1 ? "It says below what is wrong (file, row and column); nothing of it was stored" : "Each one says below what is wrong (file, row and column); nothing of them was stored"}
+      {c.failed === 1 ? "It says below what is wrong (file, row and column); none of it was stored" : "Each one says below what is wrong (file, row and column); none of them was stored"}
       {others ? ` — ${others}` : ""}. Fix {c.failed === 1 ? "it" : "them"} and upload the whole set again: files already stored are recognised and skipped.
     </Alert>
   );

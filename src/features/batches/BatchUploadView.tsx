@@ -100,7 +100,7 @@ function ChosenList({ chosen, onRemove }: { chosen: ChosenFile[]; onRemove: (ind
     <div>
       <p className="text-sm font-bold text-ink">
         {chosen.length} file{chosen.length === 1 ? "" : "s"}, {fileSize(total)}
-        {refused > 0 && <span className="text-caution"> — {refused} will not be stored as they are</span>}
+        {refused > 0 && <span className="text-caution"> — {refused === 1 ? "1 cannot be stored as it is" : `${refused} cannot be stored as they are`}</span>}
       </p>
       <ul className="mt-2 max-h-64 divide-y divide-paper-sunk overflow-y-auto rounded-md border border-paper-sunk text-sm">
         {chosen.map((c, i) => (

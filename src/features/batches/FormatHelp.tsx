@@ -47,7 +47,7 @@ export function FormatHelp({ sessionId }: { sessionId: string | null }) {
         <p className="text-sm text-ink-soft">
           Create a personal API token on the <Link className="font-bold text-petrol-700 underline" to="/tokens">API tokens</Link> page, then after each run:
         </p>
-        <pre className="mt-2 whitespace-pre-wrap break-all rounded bg-paper-sunk p-2 text-xs">{`export RHOMB_URL=${window.location.origin}\nexport RHOMB_TOKEN=rhb_…\nnpm run --silent rhomb -- upload \\\n  --session ${sessionId ?? "<session id>"} run-0042.csv`}</pre>
+        <pre className="mt-2 overflow-x-auto whitespace-pre rounded bg-paper-sunk p-2 text-xs">{`export RHOMB_URL=${window.location.origin}\nexport RHOMB_TOKEN=rhb_…\nnpm run --silent rhomb -- upload \\\n  --session ${sessionId ?? "<session id>"} \\\n  run-0042.csv`}</pre>
         {sessionId && <p className="mt-2 text-xs text-ink-faint">Session id: <code className="select-all">{sessionId}</code></p>}
       </Panel>
     </div>

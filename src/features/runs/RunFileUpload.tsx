@@ -52,7 +52,8 @@ export function RunFileUpload({ labId, sessionId }: { labId: string; sessionId: 
       </Field>
       {check?.error && (
         <Alert kind="error" title="This file cannot be used as it is">
-          {check.error} Nothing was sent.
+          {check.error}
+          {/[.!?]$/.test(check.error) ? " " : ". "}Nothing was sent.
         </Alert>
       )}
       {check?.parsed && (

@@ -15,11 +15,15 @@ import { KeyFigures } from "../stateView/KeyFigures";
 import { FitDetails } from "./FitDetails";
 import { ReconstructionHistory } from "./ReconstructionHistory";
 import { ShareExportActions } from "../sharing/ShareExportActions";
-import { defaultReconstruction, describeCorrections, ofRevision, pickReconstruction } from "./reconstructionChoice";
+import { defaultReconstruction, describeCorrections, ofRevision, reconstructionForMethod } from "./reconstructionChoice";
 
 /** One run's reconstructed state: ρ as bars and numbers, figures of merit, spectrum, warnings. */
 export function RunStateView({ labId, run, sessionWindowNs }: { labId: string; run: RunDetailDto; sessionWindowNs: number | null }) {
   const [selectedId, setSelectedId] = useState<string | null>(null);
+  // The reconstruction the reader chose (page default, history, or one just made): switching
+  // method looks for its corrections, and switching back returns to it, even when the other
+  // method had only a raw-count reconstruction to show in between.
+  const [chosenId, setChosenId] = useState<string | null>(null);
   const [justMade, setJustMade] = useState<ReconstructionDto | null>(null);
   const all = justMade && !run.reconstructions.some((r) => r.id === justMade.id) ? [justMade, ...run.reconstructions] : run.reconstructions;
   const selected = all.find((r) => r.id === selectedId) ?? defaultReconstruction(all, run.revisionNumber);
@@ -32,9 +36,14 @@ export function RunStateView({ labId, run, sessionWindowNs }: { labId: string; r
       </EmptyState>
     );
   }
+  const chosen = all.find((r) => r.id === chosenId) ?? defaultReconstruction(all, run.revisionNumber) ?? selected;
+  const choose = (id: string) => {
+    setChosenId(id);
+    setSelectedId(id);
+  };
   const current = ofRevision(all, run.revisionNumber);
   const methods = (Object.keys(METHOD_NAME) as ReconstructionMethod[]).filter((m) => current.some((r) => r.method === m));
-  const switchMethod = (m: ReconstructionMethod) => setSelectedId(pickReconstruction(all, run.revisionNumber, m, selected.corrections)?.id ?? null);
+  const switchMethod = (m: ReconstructionMethod) => setSelectedId(reconstructionForMethod(all, run.revisionNumber, chosen, m)?.id ?? null);
 
   return (
     <div className="space-y-4">
@@ -78,12 +87,12 @@ export function RunStateView({ labId, run, sessionWindowNs }: { labId: string; r
           sessionWindowNs={sessionWindowNs}
           onCreated={(r) => {
             setJustMade(r);
-            setSelectedId(r.id);
+            choose(r.id);
           }}
         />
       </Panel>
       <Panel title="Every reconstruction of this run">
-        <ReconstructionHistory reconstructions={all} selectedId={selected.id} onSelect={setSelectedId} target={target} currentRevision={run.revisionNumber} />
+        <ReconstructionHistory reconstructions={all} selectedId={selected.id} onSelect={choose} target={target} currentRevision={run.revisionNumber} />
       </Panel>
     </div>
   );

@@ -18,6 +18,17 @@ export function pickReconstruction(list: ReconstructionDto[], revision: number, 
   return (corrections && current.find((r) => sameCorrections(r.corrections, corrections))) ?? current[0];
 }
 
+/**
+ * What the method switch shows: the reader's chosen reconstruction when its method is picked
+ * again, else the newest of that method with the chosen one's corrections, else the newest of
+ * that method. Keyed on the choice, not on what is shown, so a detour through a method that has
+ * only raw-count results does not lose the corrections.
+ */
+export function reconstructionForMethod(list: ReconstructionDto[], revision: number, chosen: ReconstructionDto, method: ReconstructionMethod): ReconstructionDto | undefined {
+  if (method === chosen.method && chosen.revisionNumber === revision) return chosen;
+  return pickReconstruction(list, revision, method, chosen.corrections);
+}
+
 /** The one the page opens with: maximum likelihood if there is one, else the newest. */
 export function defaultReconstruction(list: ReconstructionDto[], revision: number): ReconstructionDto | undefined {
   return pickReconstruction(list, revision, "mle") ?? ofRevision(list, revision)[0];

@@ -32,6 +32,8 @@ export interface TabWalk {
   reached: string[];
   /** Visible, enabled controls that Tab never reached. */
   missed: string[];
+  /** Focused elements that showed no focus indicator (no outline or box-shadow on them, or on the label of a visually hidden radio or checkbox). */
+  unmarked: string[];
 }
 
 /**
@@ -47,6 +49,7 @@ export async function walkWithTab(page: Page, maxTabs = 400): Promise<TabWalk> {
     document.querySelectorAll("[data-tab-seen]").forEach((e) => e.removeAttribute("data-tab-seen"));
   });
   const reached: string[] = [];
+  const unmarked: string[] = [];
   let first: string | null = null;
   for (let i = 0; i < maxTabs; i++) {
     await page.keyboard.press("Tab");
@@ -55,12 +58,21 @@ export async function walkWithTab(page: Page, maxTabs = 400): Promise<TabWalk> {
       if (!el || el === document.body) return null;
       const key = el.getAttribute("data-tab-seen") ?? String(document.querySelectorAll("[data-tab-seen]").length + 1);
       el.setAttribute("data-tab-seen", key);
-      return `${key}:${el.tagName.toLowerCase()} ${(el.getAttribute("aria-label") ?? el.textContent ?? "").trim().slice(0, 40)}`;
+      // WCAG 2.4.7 (focus visible): an outline or a shadow ring on the element, or on the label
+      // that stands for a visually hidden input.
+      const marked = (e: Element | null) => {
+        if (!e) return false;
+        const st = getComputedStyle(e);
+        return (st.outlineStyle !== "none" && parseFloat(st.outlineWidth) > 0) || st.boxShadow !== "none";
+      };
+      const visible = marked(el) || ((el as HTMLInputElement).type === "radio" || (el as HTMLInputElement).type === "checkbox" ? marked(el.closest("label")) : false);
+      return { text: `${key}:${el.tagName.toLowerCase()} ${(el.getAttribute("aria-label") ?? el.textContent ?? "").trim().slice(0, 40)}`, visible };
     });
     if (here === null) continue;
-    if (here === first) break;
-    first ??= here;
-    reached.push(here);
+    if (!here.visible && !unmarked.includes(here.text)) unmarked.push(here.text);
+    if (here.text === first) break;
+    first ??= here.text;
+    reached.push(here.text);
   }
   const missed = await page.evaluate(() => {
     const selector = 'a[href], button, input:not([type="hidden"]), select, textarea, summary, [tabindex]';
@@ -76,5 +88,5 @@ export async function walkWithTab(page: Page, maxTabs = 400): Promise<TabWalk> {
       })
       .map((el) => `${el.tagName.toLowerCase()} ${(el.getAttribute("aria-label") ?? el.textContent ?? (el as HTMLInputElement).name ?? "").trim().slice(0, 60)}`);
   });
-  return { reached, missed };
+  return { reached, missed, unmarked };
 }
