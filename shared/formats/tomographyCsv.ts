@@ -134,11 +134,18 @@ export function parseTomographyCsv(input: string, options: TomographyCsvOptions 
   return { rows, lines, photons, columns: header, comments };
 }
 
+/** A column the user probably meant: singular for plural, or other separators ("count", "singles-a", "singlesA"). */
+function nearColumn(name: string): string | undefined {
+  const squash = (x: string) => x.replace(/[\s_-]/g, "");
+  return (CSV_COLUMNS as readonly string[]).find((c) => c === `${name}s` || `${c}s` === name || squash(c) === squash(name));
+}
+
 function readHeader(record: { fields: string[]; line: number }, options: TomographyCsvOptions): Column[] {
   const names = record.fields.map((f) => f.trim().toLowerCase());
   names.forEach((n, i) => {
     if (!(CSV_COLUMNS as readonly string[]).includes(n)) {
-      const hint = /^\d/.test(n) || /^[hvdarl]{1,4}$/.test(n) ? " — is the header line missing?" : "";
+      const near = nearColumn(n);
+      const hint = near ? ` — did you mean "${near}"?` : /^\d/.test(n) || /^[hvdarl]{1,4}$/.test(n) ? " — is the header line missing?" : "";
       throw new TomographyCsvError(record.line, record.fields[i].trim(), `unknown column (allowed: basis, counts, seconds, singles_a, singles_b, monitor, arm_a_qwp_deg, arm_a_hwp_deg, arm_a_port, … for arms a–d)${hint}`);
     }
     if (names.indexOf(n) !== i) throw new TomographyCsvError(record.line, n, "appears twice in the header");

@@ -49,6 +49,8 @@ describe("refused input names the row and the column", () => {
     ["header without data", "basis,counts\n", "row 1: there are no data rows after the header"],
     ["missing counts column", "basis,seconds\nHH,1\n", 'row 1, column "counts": missing from the header (it needs at least basis,counts)'],
     ["missing header line", "HH,12\nHV,3\n", /^row 1, column "HH": unknown column/],
+    ["a near miss of a column name", "basis,count\nHH,1\n", /^row 1, column "count": unknown column .* — did you mean "counts"\?$/],
+    ["another separator in a column name", "basis,counts,Singles-B\nHH,1,2\n", /column "Singles-B": unknown column .* — did you mean "singles_b"\?$/],
     ["unknown column", "basis,counts,singels_a\nHH,1,2\n", /^row 1, column "singels_a": unknown column \(allowed: basis, counts, seconds, singles_a, singles_b, monitor, arm_a_qwp_deg, arm_a_hwp_deg, arm_a_port, … for arms a–d\)/],
     ["column twice", "basis,counts,counts\nHH,1,2\n", 'row 1, column "counts": appears twice in the header'],
     ["one singles column", "basis,counts,singles_a\nHH,1,2\n", 'row 1, column "singles_b": missing from the header (singles_a and singles_b come together)'],
