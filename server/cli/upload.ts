@@ -100,7 +100,7 @@ function printNew(files: BatchFileDto[], printed: Set<string>): void {
     if (printed.has(f.id) || f.status === "queued" || f.status === "processing") continue;
     printed.add(f.id);
     const line =
-      f.status === "stored" ? `stored     ${f.fileName} → run “${f.run?.name ?? "?"}”` : f.status === "duplicate" ? `duplicate  ${f.message}` : `failed     ${f.message}`;
+      f.status === "stored" ? `stored     ${f.fileName} → run “${f.run?.name ?? "?"}”${f.message ? ` (${f.message})` : ""}` : f.status === "duplicate" ? `duplicate  ${f.message}` : `failed     ${f.message}`;
     process.stdout.write(`${line}\n`);
   }
 }

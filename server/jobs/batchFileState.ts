@@ -53,9 +53,24 @@ export async function claimedRunWithContent(file: BatchFile, batch: Batch): Prom
 }
 
 type Outcome =
-  | { status: Extract<BatchFileStatus, "stored">; runId: string }
+  | { status: Extract<BatchFileStatus, "stored">; runId: string; message?: string | null }
   | { status: Extract<BatchFileStatus, "duplicate">; duplicateOfRunId: string; message: string }
   | { status: Extract<BatchFileStatus, "failed">; issues: FileIssue[]; message: string };
+
+/**
+ * For a stored file: a note when its run's name was already taken in the session (both runs are
+ * kept; only identical bytes count as the same run), else null.
+ */
+export async function nameClashNote(runId: string): Promise<string | null> {
+  const [row] = await db().query(
+    `SELECT r.name, count(o.id)::int AS others
+       FROM runs r LEFT JOIN runs o ON o.session_id = r.session_id AND o.name = r.name AND o.id <> r.id
+      WHERE r.id = $1 GROUP BY r.name`,
+    [runId],
+  );
+  if (!row || row.others === 0) return null;
+  return `stored, but the session already had ${row.others === 1 ? "a run" : `${row.others} runs`} named “${row.name}”: both are kept; tell them apart by their figures or notes, or rename one`;
+}
 
 /** Finishes a file that is still queued or processing (a finished file never changes again). */
 export async function markFile(id: string, outcome: Outcome): Promise<void> {
@@ -67,7 +82,7 @@ export async function markFile(id: string, outcome: Outcome): Promise<void> {
       outcome.status,
       outcome.status === "stored" ? outcome.runId : null,
       outcome.status === "duplicate" ? outcome.duplicateOfRunId : null,
-      outcome.status === "stored" ? null : outcome.message,
+      outcome.status === "stored" ? (outcome.message ?? null) : outcome.message,
       JSON.stringify(outcome.status === "failed" ? outcome.issues : []),
     ],
   );

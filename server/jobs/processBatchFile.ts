@@ -12,7 +12,7 @@ import { runPolicy } from "../policies/runs";
 import { createRun } from "../services/runs";
 import { uploadRun } from "../services/uploads";
 import { baseName, issuesOf, parseRunContent, stem } from "./batchFileContent";
-import { claimedRunWithContent, markFile, withContentLock } from "./batchFileState";
+import { claimedRunWithContent, markFile, nameClashNote, withContentLock } from "./batchFileState";
 
 /**
  * One job: store one batch file as a run (with its reconstructions and the file's bytes, in the
@@ -41,7 +41,7 @@ export async function processBatchFile(batchFileId: string, options: { finalAtte
       const user = await uploader(batch);
       await runPolicy.create(user, file.labId);
       const runId = await store(user, batch, file);
-      await markFile(file.id, { status: "stored", runId });
+      await markFile(file.id, { status: "stored", runId, message: await nameClashNote(runId) });
     });
   } catch (e) {
     const issues = fileIssues(e, file);

@@ -70,8 +70,13 @@ export async function getBatch(labId: string, batchId: string): Promise<BatchVie
   const batch = await db().getRepository(Batch).findOne({ where: { id: batchId, labId }, relations: { session: true, createdBy: true } });
   if (!batch) throw notFound("Batch");
   const files = await db().getRepository(BatchFile).find({ where: { batchId }, relations: { run: true, duplicateOf: true }, order: { position: "ASC" } });
-  const [view] = await withCounts([batch]);
-  return { ...view, files };
+  // Counts from the very rows returned, not a second query: a file finishing in between would
+  // otherwise make the batch "done" while one of its files still says "processing".
+  const tally = BATCH_FILE_STATUSES.map((status) => {
+    const mine = files.filter((f) => f.status === status);
+    return { status, n: String(mine.length), finished: latest(mine.map((f) => f.finishedAt)) };
+  });
+  return { ...summarise(batch, tally), files };
 }
 
 /** The lab's recent batches, newest first (optionally of one session). */
@@ -86,11 +91,16 @@ async function withCounts(batches: Batch[]): Promise<BatchView[]> {
     `SELECT batch_id, status, count(*) AS n, max(finished_at) AS finished FROM batch_files WHERE batch_id = ANY($1) GROUP BY batch_id, status`,
     [batches.map((b) => b.id)],
   );
-  return batches.map((batch) => {
-    const mine = rows.filter((r) => r.batch_id === batch.id);
-    const counts = Object.fromEntries(BATCH_FILE_STATUSES.map((s) => [s, Number(mine.find((r) => r.status === s)?.n ?? 0)])) as BatchCounts;
-    const done = BATCH_FILE_STATUSES.every((s) => FINAL_STATUSES.includes(s) || counts[s] === 0);
-    const finished = mine.map((r) => r.finished).filter((d): d is Date => !!d);
-    return { batch, counts, finishedAt: done && finished.length ? new Date(Math.max(...finished.map((d) => d.getTime()))) : null };
-  });
+  return batches.map((batch) => summarise(batch, rows.filter((r) => r.batch_id === batch.id)));
+}
+
+function latest(dates: Array<Date | null>): Date | null {
+  const known = dates.filter((d): d is Date => !!d);
+  return known.length ? new Date(Math.max(...known.map((d) => d.getTime()))) : null;
+}
+
+function summarise(batch: Batch, tally: Array<{ status: BatchFileStatus; n: string; finished: Date | null }>): BatchView {
+  const counts = Object.fromEntries(BATCH_FILE_STATUSES.map((s) => [s, Number(tally.find((r) => r.status === s)?.n ?? 0)])) as BatchCounts;
+  const done = BATCH_FILE_STATUSES.every((s) => FINAL_STATUSES.includes(s) || counts[s] === 0);
+  return { batch, counts, finishedAt: done ? latest(tally.map((r) => r.finished)) : null };
 }

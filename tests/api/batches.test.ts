@@ -106,6 +106,19 @@ describe("batch uploads", () => {
     expect(copy.message).toBe("2mW-copy.csv: already stored as run “2mW” in session “Test session” — not stored again");
   });
 
+  it("stores a run whose name is already taken in the session, and says so", async () => {
+    // Different counts under a name the first batch stored ("5 mW"): a second run, with a note.
+    const sameName = { name: "5mW-again.json", content: runJson("5 mW", psiMinusRows({ seed: 55 })) };
+    const fresh = { name: "6mW.json", content: runJson("6 mW", psiMinusRows({ seed: 56 })) };
+    const res = await uploadBatch(f.clients.member, f.lab.id, sessionId, [sameName, fresh]).expect(202);
+    const batch = await waitForBatch(f.clients.member, f.lab.id, res.body.id);
+    expect(batch.counts.stored).toBe(2);
+    const byName = Object.fromEntries(batch.files.map((x) => [x.fileName, x]));
+    expect(byName["5mW-again.json"].message).toBe("stored, but the session already had a run named “5 mW”: both are kept; tell them apart by their figures or notes, or rename one");
+    expect(byName["6mW.json"].message).toBeNull();
+    expect(await t.dataSource.getRepository(Run).countBy({ sessionId, name: "5 mW" })).toBe(2);
+  });
+
   it("refuses what is over the limits with a message that says which limit", async () => {
     // A zip bomb: 30 MB of zeros in a few kilobytes.
     const bomb = { name: "bomb.zip", content: Buffer.from(zipSync({ "huge.csv": new Uint8Array(30_000_000) }, { level: 9 })) };

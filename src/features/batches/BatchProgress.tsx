@@ -95,9 +95,12 @@ function columns(labId: string): Column<BatchFileDto>[] {
 function Result({ labId, file }: { labId: string; file: BatchFileDto }) {
   if (file.status === "stored") {
     return file.run ? (
-      <Link className="font-bold text-petrol-700 underline" to={labPaths.run(labId, file.run.id)}>
-        Run “{file.run.name}”
-      </Link>
+      <>
+        <Link className="font-bold text-petrol-700 underline" to={labPaths.run(labId, file.run.id)}>
+          Run “{file.run.name}”
+        </Link>
+        {file.message && <span className="block text-sm text-caution">{file.message}</span>}
+      </>
     ) : (
       <span className="text-ink-faint">Stored (the run was deleted since)</span>
     );
