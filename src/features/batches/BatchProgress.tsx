@@ -21,7 +21,7 @@ export function BatchProgress({ batch }: { batch: BatchDto }) {
       <div>
         <div className="flex flex-wrap items-baseline justify-between gap-2">
           <p className="font-bold text-ink" id={`progress-${batch.id}`}>
-            {batch.done ? "Batch finished" : "Processing the batch"} — {finished.toLocaleString("en")} of {batch.fileCount.toLocaleString("en")} files done
+            {batch.done ? "Batch finished" : "Processing the batch"} — {finished.toLocaleString("en")} of {batch.fileCount.toLocaleString("en")} {batch.fileCount === 1 ? "file" : "files"} done
           </p>
           <p className="num text-sm text-ink-soft">{percent} %</p>
         </div>
@@ -69,12 +69,13 @@ function Outcome({ batch }: { batch: BatchDto }) {
   const c = batch.counts;
   if (c.failed === 0) {
     return (
-      <Alert kind="success" title={`All ${batch.fileCount} files are in the session`}>
-        {c.stored} stored as new runs{c.duplicate ? `, ${c.duplicate} were already stored and were not stored again` : ""}.
+      <Alert kind="success" title={batch.fileCount === 1 ? "The file is in the session" : `All ${batch.fileCount} files are in the session`}>
+        {c.stored} stored as {c.stored === 1 ? "a new run" : "new runs"}
+        {c.duplicate ? `, ${c.duplicate} ${c.duplicate === 1 ? "was" : "were"} already stored and not stored again` : ""}.
       </Alert>
     );
   }
-  const others = [c.stored && `the other ${c.stored} were stored as new runs`, c.duplicate && `${c.duplicate} had been stored before and were not stored again`].filter(Boolean).join("; ");
+  const others = [c.stored && (c.stored === 1 ? "the other one was stored as a new run" : `the other ${c.stored} were stored as new runs`), c.duplicate && `${c.duplicate} had been stored before and ${c.duplicate === 1 ? "was" : "were"} not stored again`].filter(Boolean).join("; ");
   return (
     <Alert kind="caution" title={`${c.failed} of ${batch.fileCount} files ${c.failed === 1 ? "was" : "were"} not stored`}>
       {c.failed === 1 ? "It says below what is wrong (file, row and column); none of it was stored" : "Each one says below what is wrong (file, row and column); none of them was stored"}
