@@ -5,6 +5,7 @@
  * Index j has base-4 digits j1 … jn, photon A most significant.
  */
 import { type CMatrix, zeros } from "./linalg/complexMatrix";
+import { memoByKey } from "./memo";
 
 export const PAULI_LETTERS = ["I", "X", "Y", "Z"] as const;
 
@@ -44,17 +45,8 @@ interface PauliEntries {
   im: Float64Array;
 }
 
-const entryTables = new Map<number, PauliEntries>();
-
 /** The tables, computed once per photon number (they are only read). */
-function entriesOf(photons: number): PauliEntries {
-  let t = entryTables.get(photons);
-  if (!t) {
-    t = pauliEntries(photons);
-    entryTables.set(photons, t);
-  }
-  return t;
-}
+const entriesOf = memoByKey(pauliEntries);
 
 function pauliEntries(photons: number): PauliEntries {
   const d = 1 << photons;

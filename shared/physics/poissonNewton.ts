@@ -19,6 +19,7 @@ import type { LinePoint, NewtonProblem } from "./linalg/dampedNewton";
 import { type CMatrix, zeros } from "./linalg/complexMatrix";
 import { unpackParameters } from "./choleskyParametrisation";
 import { symmetricRankUpdate } from "./linalg/symmetricRankUpdate";
+import { memoByKey } from "./memo";
 
 /** The analysed states |ψ_k⟩ (index k·d + basis index) in the basis of the search. */
 export interface AnalysedStates {
@@ -273,17 +274,8 @@ interface Couplings {
   sign: Int8Array;
 }
 
-const couplingsBySize = new Map<number, Couplings>();
-
 /** The coupling tables of dimension d, built once (they are only read). */
-function couplings(d: number): Couplings {
-  let c = couplingsBySize.get(d);
-  if (!c) {
-    c = buildCouplings(d);
-    couplingsBySize.set(d, c);
-  }
-  return c;
-}
+const couplings = memoByKey(buildCouplings);
 
 function buildCouplings(d: number): Couplings {
   const size = d * d;

@@ -10,6 +10,7 @@
  * 2×2 … 16×16 matrices of one to four photons.
  */
 import { type CMatrix, zeros } from "./complexMatrix";
+import { memoByKey } from "../memo";
 
 export interface EigenDecomposition {
   /** Eigenvalues in descending order. */
@@ -54,16 +55,9 @@ interface JacobiWork {
   order: Int32Array;
 }
 
-const workBySize = new Map<number, JacobiWork>();
-
-function workFor(n: number): JacobiWork {
-  let w = workBySize.get(n);
-  if (!w) {
-    w = { ar: new Float64Array(n * n), ai: new Float64Array(n * n), vr: new Float64Array(n * n), vi: new Float64Array(n * n), order: new Int32Array(n) };
-    workBySize.set(n, w);
-  }
-  return w;
-}
+const workFor = memoByKey(
+  (n: number): JacobiWork => ({ ar: new Float64Array(n * n), ai: new Float64Array(n * n), vr: new Float64Array(n * n), vi: new Float64Array(n * n), order: new Int32Array(n) }),
+);
 
 /** Diagonalises a copy of `input` in the size's scratch; `order` lists the diagonal by descending value. */
 function jacobi(input: CMatrix, withVectors: boolean): JacobiWork {
