@@ -74,7 +74,7 @@ export async function getBatch(labId: string, batchId: string): Promise<BatchVie
   // otherwise make the batch "done" while one of its files still says "processing".
   const tally = BATCH_FILE_STATUSES.map((status) => {
     const mine = files.filter((f) => f.status === status);
-    return { status, n: String(mine.length), finished: latest(mine.map((f) => f.finishedAt)) };
+    return { status, n: mine.length, finished: latest(mine.map((f) => f.finishedAt)) };
   });
   return { ...summarise(batch, tally), files };
 }
@@ -91,7 +91,7 @@ async function withCounts(batches: Batch[]): Promise<BatchView[]> {
     `SELECT batch_id, status, count(*) AS n, max(finished_at) AS finished FROM batch_files WHERE batch_id = ANY($1) GROUP BY batch_id, status`,
     [batches.map((b) => b.id)],
   );
-  return batches.map((batch) => summarise(batch, rows.filter((r) => r.batch_id === batch.id)));
+  return batches.map((batch) => summarise(batch, rows.filter((r) => r.batch_id === batch.id).map((r) => ({ ...r, n: Number(r.n) }))));
 }
 
 function latest(dates: Array<Date | null>): Date | null {
@@ -99,8 +99,9 @@ function latest(dates: Array<Date | null>): Date | null {
   return known.length ? new Date(Math.max(...known.map((d) => d.getTime()))) : null;
 }
 
-function summarise(batch: Batch, tally: Array<{ status: BatchFileStatus; n: string; finished: Date | null }>): BatchView {
-  const counts = Object.fromEntries(BATCH_FILE_STATUSES.map((s) => [s, Number(tally.find((r) => r.status === s)?.n ?? 0)])) as BatchCounts;
+/** Counts per status (and when the last file finished, once all have) from a tally of the files. */
+function summarise(batch: Batch, tally: Array<{ status: BatchFileStatus; n: number; finished: Date | null }>): BatchView {
+  const counts = Object.fromEntries(BATCH_FILE_STATUSES.map((s) => [s, tally.find((r) => r.status === s)?.n ?? 0])) as BatchCounts;
   const done = BATCH_FILE_STATUSES.every((s) => FINAL_STATUSES.includes(s) || counts[s] === 0);
   return { batch, counts, finishedAt: done ? latest(tally.map((r) => r.finished)) : null };
 }
