@@ -99,6 +99,12 @@ function finite(sigma: CMatrix, rates: Float64Array): CMatrix {
   throw new EngineInputError("invalid_input", `${row >= 0 ? `row ${row + 1}: ` : ""}the exposures, efficiencies and drift-monitor readings span too many orders of magnitude for a finite estimate; check them`);
 }
 
+function largestEntry(sigma: CMatrix): number {
+  let m = 0;
+  for (let i = 0; i < sigma.re.length; i++) m = Math.max(m, Math.abs(sigma.re[i]), Math.abs(sigma.im[i]));
+  return m;
+}
+
 export function reconstruct(input: ReconstructInput, options: ReconstructOptions): Reconstruction {
   const problem = prepareProblem(input, options);
   const estimate = solveProblem(problem, problem.data, options);
@@ -108,7 +114,12 @@ export function reconstruct(input: ReconstructInput, options: ReconstructOptions
 export function describe(problem: PreparedProblem, estimate: Estimate, input: ReconstructInput, options: ReconstructOptions): Reconstruction {
   const { model, data } = problem;
   const trace = traceRe(estimate.sigma);
-  if (!(trace > 0 && Number.isFinite(trace))) throw new EngineInputError("invalid_input", `The estimate has trace ${trace}, so it cannot be normalised to a state: the counts leave the pair rate undetermined (no counts in any complete basis?).`);
+  // A trace at rounding level next to the entries (e.g. 1 count in HH…VV beside 10^15 elsewhere)
+  // is no pair rate at all: normalising by it would return entries of order 10^15.
+  const resolvable = 64 * Number.EPSILON * model.dimension * largestEntry(estimate.sigma);
+  if (!(trace > resolvable && Number.isFinite(trace))) {
+    throw new EngineInputError("invalid_input", `The estimate has trace ${trace}${trace > 0 ? `, below the rounding level of its entries (${resolvable.toPrecision(2)})` : ""}, so it cannot be normalised to a state: the counts leave the pair rate undetermined (no counts in any complete basis, or far fewer there than in the other rows?).`);
+  }
   const rho = hermitianPart(scale(estimate.sigma, 1 / trace));
   const eigenvalues = Array.from(hermitianEigenvalues(rho));
   const physical = eigenvalues[eigenvalues.length - 1] >= -PHYSICAL_TOLERANCE;
